@@ -1,0 +1,77 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import compression from 'compression';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import { pinoHttp } from 'pino-http';
+import type { Logger } from 'pino';
+import type { DataSource } from 'typeorm';
+import type { AppConfig } from './config';
+import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { healthRouter } from './routes/health';
+import { HealthService, databaseProbe, type ComponentProbe } from './services/health';
+
+/** What the app is built from; specs pass their own (a throwaway database, a fake broker probe). */
+export interface AppDeps {
+  config: AppConfig;
+  dataSource: DataSource;
+  logger: Logger;
+  brokerProbe: ComponentProbe;
+  version: string;
+}
+
+function securityHeaders(config: AppConfig) {
+  const https = config.publicUrl.startsWith('https:');
+  return helmet({
+    contentSecurityPolicy: {
+      directives: {
+        defaultSrc: ["'self'"],
+        scriptSrc: ["'self'"],
+        // Angular Material and echarts set style attributes at run time.
+        styleSrc: ["'self'", "'unsafe-inline'"],
+        imgSrc: ["'self'", 'data:', 'blob:'],
+        fontSrc: ["'self'", 'data:'],
+        connectSrc: ["'self'"],
+        objectSrc: ["'none'"],
+        frameAncestors: ["'none'"],
+        upgradeInsecureRequests: https ? [] : null,
+      },
+    },
+    strictTransportSecurity: https,
+  });
+}
+
+/** Serves the built Angular app and answers client routes with index.html. */
+function clientApp(clientDir: string): express.Router {
+  const router = express.Router();
+  const indexFile = path.join(clientDir, 'index.html');
+  router.use(express.static(clientDir, { index: false, maxAge: '1y', immutable: true }));
+  router.get('/{*splat}', (req, res) => {
+    if (!fs.existsSync(indexFile)) {
+      res.status(503).type('text/plain').send('The web client is not built yet: run `npm run build:client`.');
+      return;
+    }
+    res.setHeader('Cache-Control', 'no-cache');
+    res.sendFile(indexFile);
+  });
+  return router;
+}
+
+export function createApp(deps: AppDeps): Express {
+  const { config, logger } = deps;
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  app.use(securityHeaders(config));
+  app.use(compression());
+  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  app.use(express.json({ limit: '256kb' }));
+
+  const health = new HealthService(deps.version, { database: databaseProbe(deps.dataSource), broker: deps.brokerProbe });
+  app.use('/api/health', healthRouter(health));
+
+  app.use('/api', apiNotFound);
+  app.use(clientApp(config.clientDir));
+  app.use(errorHandler(config.nodeEnv === 'development'));
+  return app;
+}
