@@ -1,0 +1,4 @@
+// The demo scenario's steps, in the order they run. Add a step here.
+import type { SeedStep } from '../context';
+
+export const SEED_STEPS: SeedStep[] = [];

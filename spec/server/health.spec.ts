@@ -1,0 +1,62 @@
+import pino from 'pino';
+import request from 'supertest';
+import { createApp } from '../../server/app';
+import { loadConfig } from '../../server/config';
+import { probe } from '../../server/services/health';
+import { createTestDatabase, type TestDatabase } from '../support/test-db';
+
+describe('GET /api/health', () => {
+  let db: TestDatabase;
+  let brokerUp = true;
+
+  const appWith = () =>
+    createApp({
+      config: { ...loadConfig({ NODE_ENV: 'test' }), clientDir: '/nonexistent' },
+      dataSource: db.dataSource,
+      logger: pino({ level: 'silent' }),
+      brokerProbe: () => probe(async () => {
+        if (!brokerUp) throw new Error('connection refused');
+        return 'fake broker';
+      }),
+      version: '9.9.9',
+    });
+
+  beforeAll(async () => {
+    db = await createTestDatabase();
+  });
+  afterAll(async () => db.drop());
+
+  it('reports every component up when the database and the broker answer', async () => {
+    brokerUp = true;
+    const res = await request(appWith()).get('/api/health').expect(200);
+    expect(res.body.status).toBe('ok');
+    expect(res.body.version).toBe('9.9.9');
+    expect(res.body.components.database.state).toBe('up');
+    expect(res.body.components.database.detail).toMatch(/^PostgreSQL \d+/);
+    expect(res.body.components.broker.state).toBe('up');
+  });
+
+  it('answers 503 and names the reason when the broker is unreachable', async () => {
+    brokerUp = false;
+    const res = await request(appWith()).get('/api/health').expect(503);
+    expect(res.body.status).toBe('degraded');
+    expect(res.body.components.broker).toEqual(jasmine.objectContaining({ state: 'down', detail: 'connection refused' }));
+  });
+
+  it('answers a JSON 404 for an unknown API path', async () => {
+    const res = await request(appWith()).get('/api/no-such-thing').expect(404);
+    expect(res.body.error).toBe('no such endpoint: GET /api/no-such-thing');
+  });
+
+  it('explains that the client is not built instead of failing on a client route', async () => {
+    const res = await request(appWith()).get('/fleet').expect(503);
+    expect(res.text).toContain('npm run build:client');
+  });
+
+  it('sends security headers', async () => {
+    const res = await request(appWith()).get('/api/health');
+    expect(res.headers['content-security-policy']).toContain("default-src 'self'");
+    expect(res.headers['x-content-type-options']).toBe('nosniff');
+    expect(res.headers['x-powered-by']).toBeUndefined();
+  });
+});
