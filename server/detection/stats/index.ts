@@ -1,0 +1,4 @@
+export * from './ewma';
+export * from './cusum';
+export * from './regression';
+export * from './robust';
