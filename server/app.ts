@@ -41,6 +41,19 @@ function securityHeaders(config: AppConfig) {
   });
 }
 
+/** One short line per API request; static files and health polls are not logged. */
+function requestLogger(logger: Logger) {
+  return pinoHttp({
+    logger,
+    autoLogging: { ignore: (req) => !req.url?.startsWith('/api/') || req.url.startsWith('/api/health') },
+    serializers: {
+      req: (req: { method: string; url: string }) => ({ method: req.method, url: req.url }),
+      res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
+    },
+    customLogLevel: (_req, res, error) => (error || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'warn' : 'info'),
+  });
+}
+
 /** Serves the built Angular app and answers client routes with index.html. */
 function clientApp(clientDir: string): express.Router {
   const router = express.Router();
@@ -64,7 +77,7 @@ export function createApp(deps: AppDeps): Express {
   app.set('trust proxy', 'loopback');
   app.use(securityHeaders(config));
   app.use(compression());
-  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  app.use(requestLogger(logger));
   app.use(express.json({ limit: '256kb' }));
 
   const health = new HealthService(deps.version, { database: databaseProbe(deps.dataSource), broker: deps.brokerProbe });

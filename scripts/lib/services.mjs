@@ -19,7 +19,7 @@ export function services(env, options = {}) {
       command: node,
       args: [dist('server/main.js')],
       env,
-      ready: { http: `${env.PUBLIC_URL}/api/health`, acceptStatus: [200, 503] },
+      ready: { http: `${env.PUBLIC_URL}/api/health` },
     },
   ];
 }

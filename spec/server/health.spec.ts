@@ -36,11 +36,18 @@ describe('GET /api/health', () => {
     expect(res.body.components.broker.state).toBe('up');
   });
 
-  it('answers 503 and names the reason when the broker is unreachable', async () => {
+  it('reports degraded and names the reason when the broker is unreachable', async () => {
     brokerUp = false;
-    const res = await request(appWith()).get('/api/health').expect(503);
+    const res = await request(appWith()).get('/api/health').expect(200);
     expect(res.body.status).toBe('degraded');
     expect(res.body.components.broker).toEqual(jasmine.objectContaining({ state: 'down', detail: 'connection refused' }));
+  });
+
+  it('answers the readiness check with 503 while a component is down and 200 when all are up', async () => {
+    brokerUp = false;
+    await request(appWith()).get('/api/health/ready').expect(503);
+    brokerUp = true;
+    await request(appWith()).get('/api/health/ready').expect(200);
   });
 
   it('answers a JSON 404 for an unknown API path', async () => {

@@ -1,0 +1,21 @@
+// The environment every service of one running stack shares. `npm start` uses the
+// defaults; the end-to-end suite runs a second stack on other ports and its own data.
+import { DATA_DIR, databaseUrl } from './paths.mjs';
+
+export const DEFAULT_PORTS = { http: 4280, mqtt: 1884 };
+
+export function stackEnv({ ports = DEFAULT_PORTS, database, dataDir = DATA_DIR, extra = {} } = {}) {
+  const publicUrl = `http://127.0.0.1:${ports.http}`;
+  return {
+    ...process.env,
+    NODE_ENV: process.env.NODE_ENV ?? 'production',
+    HOST: '127.0.0.1',
+    PORT: String(ports.http),
+    PUBLIC_URL: publicUrl,
+    DATABASE_URL: databaseUrl(database),
+    MQTT_URL: `mqtt://127.0.0.1:${ports.mqtt}`,
+    MQTT_PORT: String(ports.mqtt),
+    CHILLWARDEN_DATA_DIR: dataDir,
+    ...extra,
+  };
+}

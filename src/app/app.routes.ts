@@ -1,0 +1,126 @@
+import { inject } from '@angular/core';
+import type { Route, Routes } from '@angular/router';
+import type { Role } from '../../shared/domain';
+import { roleGuard } from './core/auth/guards';
+import { Session } from './core/auth/session';
+
+interface EmptyPageData {
+  title: string;
+  lead: string;
+  icon: string;
+  heading: string;
+  message: string;
+  actionLabel?: string;
+  actionLink?: string;
+}
+
+/** A route whose feature page is still to come: it shows a real empty state meanwhile. */
+function emptyStateRoute(path: string, roles: Role[], data: EmptyPageData): Route {
+  return {
+    path,
+    title: `${data.title} · Chillwarden`,
+    canMatch: [roleGuard(...roles)],
+    loadComponent: () => import('./shared/empty-state-page/empty-state-page').then((m) => m.EmptyStatePage),
+    data: { ...data },
+  };
+}
+
+export const routes: Routes = [
+  { path: '', pathMatch: 'full', redirectTo: () => inject(Session).homePath() },
+  {
+    path: 'status',
+    title: 'System status · Chillwarden',
+    loadComponent: () => import('./status/status-page').then((m) => m.StatusPage),
+  },
+  {
+    path: 'sign-in',
+    title: 'Sign in · Chillwarden',
+    loadComponent: () => import('./shared/empty-state-page/empty-state-page').then((m) => m.EmptyStatePage),
+    data: {
+      title: 'Sign in',
+      lead: 'Managers, contractors and tenants each sign in with the e-mail address they were invited with.',
+      icon: 'login',
+      heading: 'Sign-in is not open on this server yet',
+      message: 'Accounts are being set up. The system status page shows whether the server, database and broker are running.',
+      actionLabel: 'See system status',
+      actionLink: '/status',
+    },
+  },
+  emptyStateRoute('fleet', ['manager'], {
+    title: 'Fleet',
+    lead: 'Every property and its appliances, coloured by health.',
+    icon: 'kitchen',
+    heading: 'No appliances are reporting yet',
+    message: 'Once sensors report, each property appears here as a band of units coloured from cold to no cooling. Pair a sensor to an appliance in Inventory to begin.',
+    actionLabel: 'Open inventory',
+    actionLink: '/inventory',
+  }),
+  emptyStateRoute('incidents', ['manager'], {
+    title: 'Incidents',
+    lead: 'Episodes of trouble on an appliance, from the first finding to recovery.',
+    icon: 'device_thermostat',
+    heading: 'No incidents',
+    message: 'When an appliance warms away from its own normal, an incident opens here with the probable failed part.',
+  }),
+  emptyStateRoute('requests', ['manager'], {
+    title: 'Service requests',
+    lead: 'Requests for repair, opened by the monitor or by a tenant.',
+    icon: 'assignment',
+    heading: 'No service requests',
+    message: 'Requests open here when an incident needs a technician or a tenant reports a problem.',
+  }),
+  emptyStateRoute('work-orders', ['manager'], {
+    title: 'Work orders',
+    lead: 'Jobs dispatched to contractors, from dispatch to a repair verified by telemetry.',
+    icon: 'build',
+    heading: 'No work orders',
+    message: 'A work order is dispatched to the contractor who covers the building when a request needs a visit.',
+  }),
+  emptyStateRoute('inventory', ['manager'], {
+    title: 'Inventory',
+    lead: 'Properties, units, appliances, sensors and contractors.',
+    icon: 'apartment',
+    heading: 'Nothing in the inventory yet',
+    message: 'Add a property with its units and appliances, or import them from a CSV file, then pair a sensor to each appliance.',
+  }),
+  emptyStateRoute('logger-files', ['manager'], {
+    title: 'Logger files',
+    lead: 'Analyse a stand-alone temperature logger’s CSV file with the same engine as live telemetry.',
+    icon: 'upload_file',
+    heading: 'No logger files analysed yet',
+    message: 'Upload a CSV with a timestamp column and fresh-food or freezer temperatures to see its chart and findings.',
+  }),
+  emptyStateRoute('reports', ['manager'], {
+    title: 'Reports',
+    lead: 'Incidents, response times, first-visit fixes and spend across the fleet.',
+    icon: 'insights',
+    heading: 'No history to report on yet',
+    message: 'Reports fill in as incidents are opened and work orders are completed.',
+  }),
+  emptyStateRoute('settings', ['manager'], {
+    title: 'Settings',
+    lead: 'Thresholds, grace periods, response targets and escalation times.',
+    icon: 'tune',
+    heading: 'Default settings are in force',
+    message: 'The food-safety limits of 40 °F for fresh food and 0 °F for freezers apply until you change them here.',
+  }),
+  emptyStateRoute('jobs', ['contractor'], {
+    title: 'My jobs',
+    lead: 'Work orders dispatched to you, soonest due first.',
+    icon: 'handyman',
+    heading: 'No open jobs',
+    message: 'When a property manager dispatches a work order to you, it appears here with the diagnosis, the parts to bring and the access window.',
+  }),
+  emptyStateRoute('home', ['tenant'], {
+    title: 'My refrigerator',
+    lead: 'The status of the refrigerator in your unit.',
+    icon: 'kitchen',
+    heading: 'No sensor is reporting from your unit yet',
+    message: 'Your landlord will pair a sensor to your refrigerator. Until then, report any problem to your property manager.',
+  }),
+  {
+    path: '**',
+    title: 'Not found · Chillwarden',
+    loadComponent: () => import('./not-found/not-found-page').then((m) => m.NotFoundPage),
+  },
+];

@@ -1,0 +1,72 @@
+import { provideHttpClient, withInterceptors } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { TestBed } from '@angular/core/testing';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatButtonHarness } from '@angular/material/button/testing';
+import { MatCardHarness } from '@angular/material/card/testing';
+import type { HealthReport } from '../../../shared/api/health';
+import { apiErrorInterceptor } from '../core/http/api-error.interceptor';
+import { StatusPage } from './status-page';
+
+function report(brokerUp: boolean): HealthReport {
+  return {
+    status: brokerUp ? 'ok' : 'degraded',
+    version: '1.2.3',
+    startedAt: '2026-12-01T10:00:00.000Z',
+    checkedAt: '2026-12-01T10:05:00.000Z',
+    components: {
+      server: { state: 'up', latencyMs: 0, detail: 'up 300 s' },
+      database: { state: 'up', latencyMs: 3, detail: 'PostgreSQL 15.18' },
+      broker: brokerUp ? { state: 'up', latencyMs: 1, detail: 'MQTT broker' } : { state: 'down', latencyMs: null, detail: 'connection refused' },
+    },
+  };
+}
+
+describe('StatusPage', () => {
+  let http: HttpTestingController;
+
+  beforeEach(() => {
+    TestBed.configureTestingModule({
+      providers: [provideHttpClient(withInterceptors([apiErrorInterceptor])), provideHttpClientTesting()],
+    });
+    http = TestBed.inject(HttpTestingController);
+  });
+
+  afterEach(() => http.verify());
+
+  async function render() {
+    const fixture = TestBed.createComponent(StatusPage);
+    fixture.detectChanges();
+    return { fixture, loader: TestbedHarnessEnvironment.loader(fixture), element: fixture.nativeElement as HTMLElement };
+  }
+
+  it('shows one card per component with its state and detail', async () => {
+    const { fixture, loader, element } = await render();
+    http.expectOne('/api/health').flush(report(true));
+    await fixture.whenStable();
+    const cards = await loader.getAllHarnesses(MatCardHarness);
+    expect(await Promise.all(cards.map((card) => card.getTitleText()))).toEqual(['Web server', 'Database', 'Telemetry broker']);
+    expect(await cards[1].getText()).toContain('PostgreSQL 15.18');
+    expect(element.querySelector('.banner')?.textContent).toContain('Everything is running.');
+  });
+
+  it('says what is down when a component is down', async () => {
+    const { fixture, element } = await render();
+    http.expectOne('/api/health').flush(report(false));
+    await fixture.whenStable();
+    expect(element.querySelector('.banner.down')?.textContent).toContain('Something is down');
+    expect(element.querySelector('[data-component="broker"]')?.textContent).toContain('connection refused');
+  });
+
+  it('says the server cannot be reached when the request fails outright, and checks again on demand', async () => {
+    const { fixture, loader, element } = await render();
+    http.expectOne('/api/health').error(new ProgressEvent('error'), { status: 0 });
+    await fixture.whenStable();
+    expect(element.querySelector('[role="alert"]')?.textContent).toContain('The server cannot be reached');
+    const button = await loader.getHarness(MatButtonHarness.with({ text: /Check now/ }));
+    await button.click();
+    http.expectOne('/api/health').flush(report(true));
+    await fixture.whenStable();
+    expect(element.querySelector('[role="alert"]')).toBeNull();
+  });
+});
