@@ -1,6 +1,6 @@
 /**
  * The appliance's control board, as in a common electronic frost-free unit (common practice):
- * - a thermostat latch per compartment on its air temperature: demand starts above
+ * - a thermostat latch per compartment on its lagged air temperature (compartment.ts): demand starts above
  *   set + band/2 and ends below set − band/2;
  * - the compressor relay closes while either compartment demands, with a minimum off time (to
  *   let the pressures equalise before a restart) and a minimum on time;

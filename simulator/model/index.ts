@@ -19,6 +19,7 @@ export { createRng, deriveSeed, gaussian, uniform, logUniform } from './rng';
 export type { Rng } from './rng';
 export { defaultProfile, randomProfile } from './profile';
 export { ApplianceSimulator } from './simulator';
+export type { SimTruth } from './simulator';
 export { generateTrace } from './trace';
 export {
   DISCONNECTED_SENTINEL_C,

@@ -1,29 +1,26 @@
 /**
- * Lumped thermal network of a refrigerator/freezer, integrated with an exact exponential
- * update per node (each node relaxes toward the conductance-weighted mean of its neighbours
- * and sources over the step, neighbours held for the step, Gauss–Seidel order). The update is
- * stable for any step, so a 20 s step can carry air nodes with time constants of minutes and
- * a coil of about a minute without blowing up; it allocates nothing.
+ * Lumped thermal network of a refrigerator/freezer: two compartments (compartment.ts: air,
+ * shell, contents) and the evaporator coil with its frost, integrated with the same exact
+ * exponential node update; nothing is allocated per step.
  *
- * Nodes: fresh-food air (fa), fresh-food contents (fc), freezer air (za), freezer contents
- * (zc), evaporator coil (coil, with its frost). Heat paths:
- * - walls and gasket to the room: 25 % into the air node, 75 % into the contents node (the
- *   liner is part of the contents); the partition joins the two contents nodes;
- * - the fan stream (mass flow × cp) passes the coil with effectiveness 0.85 (less when frosted)
- *   and is split between the freezer and, through the damper, the fresh-food section;
+ * Heat paths besides those inside a compartment:
+ * - the partition joins the two shells;
+ * - the fan stream (mass flow × cp) passes the coil with effectiveness 0.85 (less when
+ *   frosted) and is split between the freezer and, through the damper, the fresh-food section;
  * - the compressor is a conductance to a −45 °C sink sized so that it lifts `capacity` watts at
- *   a −25 °C coil (capacity rises with coil temperature, falls with room temperature about
- *   1.2 %/K, common practice for small hermetic compressors, from memory);
- * - natural convection from the coil to its compartment and through the ducts when no fan runs;
- * - the defrost heater warms the coil (15 % straight into the freezer air by radiation), frost
- *   melts at 0 °C with 334 kJ/kg (latent heat of fusion of ice, standard physical constant).
- * Frost chokes the fresh-food duct first (from 0.8 kg, nearly shut at 2 kg), the freezer path
- * later (1.5–3.5 kg); the figures are chosen so a dead heater shows in 1–4 days (common practice).
+ *   a −25 °C coil: capacity rises with coil temperature and falls about 1.2 %/K of room
+ *   temperature above 25 °C (common practice for small hermetic compressors, from memory);
+ * - natural convection from the coil to its compartment's air, and through the ducts from the
+ *   coil chamber (half coil, half freezer air) to the fresh-food air while no fan stream flows;
+ * - the defrost heater warms the coil (15 % straight into the freezer air by radiation); frost
+ *   melts at 0 °C taking 334 kJ/kg (latent heat of fusion of ice, a physical constant).
+ * Frost chokes the fresh-food duct first (from 0.5 kg, nearly shut at 1.6 kg), the freezer path
+ * later (1.2–3.5 kg) and halves the coil's effectiveness; the figures are chosen so a dead heater shows in 1–4 days (common practice).
  */
 import type { ApplianceProfile } from './types';
+import { AirPaths, Compartment, newAirPaths, relax } from './compartment';
 
-const WALL_SHARE_TO_AIR = 0.25;
-const COIL_METAL_J_PER_K = 1800;
+const COIL_METAL_J_PER_K = 2500;
 const ICE_J_PER_KG_K = 2100;
 const ICE_LATENT_J_PER_KG = 334_000;
 const COIL_EFFECTIVENESS_CLEAN = 0.85;
@@ -79,32 +76,43 @@ function smoothStep(value: number, start: number, full: number): number {
   return x * x * (3 - 2 * x);
 }
 
-function relax(tempC: number, capacityJPerK: number, sumG: number, sumGTQ: number, dtS: number): number {
-  const equilibriumC = sumGTQ / sumG;
-  return equilibriumC + (tempC - equilibriumC) * Math.exp((-dtS * sumG) / capacityJPerK);
-}
-
 export class Cabinet {
-  freshAirC: number;
-  freshContentsC: number;
-  freezerAirC: number;
-  freezerContentsC: number;
+  readonly fresh: Compartment;
+  readonly freezer: Compartment;
   coilC: number;
   iceKg = 0;
-  freshExtraJPerK = 0;
-  freezerExtraJPerK = 0;
-  private readonly hasFresh: boolean;
-  private readonly hasFreezer: boolean;
+  private readonly freshPaths: AirPaths = newAirPaths();
+  private readonly freezerPaths: AirPaths = newAirPaths();
 
   constructor(
     private readonly p: ApplianceProfile,
-    hasFresh: boolean,
-    hasFreezer: boolean,
+    private readonly hasFresh: boolean,
+    private readonly hasFreezer: boolean,
   ) {
-    this.hasFresh = hasFresh;
-    this.hasFreezer = hasFreezer;
-    this.freshAirC = this.freshContentsC = p.freshFoodSetpointC;
-    this.freezerAirC = this.freezerContentsC = p.freezerSetpointC;
+    this.fresh = new Compartment(
+      {
+        airJPerK: p.freshFoodAirJPerK,
+        shellJPerK: p.freshFoodShellJPerK,
+        contentsJPerK: p.freshFoodContentsJPerK,
+        uaWPerK: p.freshFoodUaWPerK,
+        airToShellWPerK: p.freshFoodAirToShellWPerK,
+        airToContentsWPerK: p.freshFoodAirToContentsWPerK,
+        thermostatLagS: p.thermostatLagS,
+      },
+      p.freshFoodSetpointC,
+    );
+    this.freezer = new Compartment(
+      {
+        airJPerK: p.freezerAirJPerK,
+        shellJPerK: p.freezerShellJPerK,
+        contentsJPerK: p.freezerContentsJPerK,
+        uaWPerK: p.freezerUaWPerK,
+        airToShellWPerK: p.freezerAirToShellWPerK,
+        airToContentsWPerK: p.freezerAirToContentsWPerK,
+        thermostatLagS: p.thermostatLagS,
+      },
+      p.freezerSetpointC,
+    );
     this.coilC = (hasFreezer ? p.freezerSetpointC : p.freshFoodSetpointC) - 3;
   }
 
@@ -126,45 +134,64 @@ export class Cabinet {
 
   step(dtS: number, s: StepInputs): void {
     const p = this.p;
-    const freshBlock = 1 - 0.97 * smoothStep(this.iceKg, 0.8, 2.0);
-    const freezerBlock = 1 - 0.85 * smoothStep(this.iceKg, 1.5, 3.5);
-    const effectiveness = COIL_EFFECTIVENESS_CLEAN * (1 - 0.4 * smoothStep(this.iceKg, 0.5, 3.5));
+    const freshBlock = 1 - 0.97 * smoothStep(this.iceKg, 0.5, 1.6);
+    const freezerBlock = 1 - 0.95 * smoothStep(this.iceKg, 1.2, 3.5);
+    const effectiveness = COIL_EFFECTIVENESS_CLEAN * (1 - 0.6 * smoothStep(this.iceKg, 0.5, 3.5));
     const fanG = p.hasEvaporatorFan && s.fanRunning ? p.evaporatorAirflowWPerK * s.fanAirflowFactor : 0;
     const toFreshG = fanG * this.freshShare(s) * freshBlock;
     const toFreezerG = this.hasFreezer ? fanG * (this.hasFresh ? 1 - p.freshFoodAirShare : 1) * freezerBlock : 0;
     const throughG = toFreshG + toFreezerG;
-    const mixC = throughG > 0 ? (toFreshG * this.freshAirC + toFreezerG * this.freezerAirC) / throughG : 0;
-    const coilAirC = this.hasFreezer ? this.freezerAirC : this.freshAirC;
-    const ductG = this.hasFresh && this.hasFreezer ? p.ductNaturalWPerK * freshBlock * (1 - 0.9 * s.damperClosed) : 0;
-    const supplyC = this.stepCoil(dtS, s, throughG, effectiveness, mixC, coilAirC);
-    const leakFresh = s.sealLeak * p.freshFoodUaWPerK;
-    const leakFreezer = s.sealLeak * p.freezerUaWPerK;
+    const mixC = throughG > 0 ? (toFreshG * this.fresh.airC + toFreezerG * this.freezer.airC) / throughG : 0;
+    const coilAir = this.hasFreezer ? this.freezer : this.fresh;
+    const both = this.hasFresh && this.hasFreezer;
+    const ductG = both && throughG === 0 ? p.ductNaturalWPerK * freshBlock * (1 - 0.9 * s.damperClosed) : 0;
+    const supplyC = this.stepCoil(dtS, s, throughG, effectiveness, mixC, coilAir.airC, ductG / 2);
     const doorFactor = 1 + s.sealLeak;
     if (this.hasFresh) {
-      const doorG = (p.freshFoodDoorExchangeWPerK * doorFactor * s.freshDoorOpenS) / dtS;
-      const coilG = this.hasFreezer ? 0 : p.coilNaturalWPerK;
-      this.stepFresh(dtS, s.roomC, doorG + leakFresh, toFreshG, supplyC, ductG, coilG);
+      const a = this.freshPaths;
+      a.roomG = (p.freshFoodDoorExchangeWPerK * doorFactor * s.freshDoorOpenS) / dtS + s.sealLeak * p.freshFoodUaWPerK;
+      a.supplyG = toFreshG;
+      a.supplyC = supplyC;
+      a.otherG = both ? ductG : p.coilNaturalWPerK;
+      // Cold air sinks from the coil chamber through the duct: half coil, half freezer air.
+      a.otherC = both ? 0.5 * (this.coilC + this.freezer.airC) : this.coilC;
+      a.heatW = !this.hasFreezer && fanG > 0 ? FAN_HEAT_W : 0;
+      this.fresh.step(dtS, s.roomC, a, both ? p.partitionUaWPerK : 0, this.freezer.shellC);
     }
     if (this.hasFreezer) {
-      const doorG = (p.freezerDoorExchangeWPerK * doorFactor * s.freezerDoorOpenS) / dtS;
-      const heatW = (s.heaterOn ? HEATER_SHARE_TO_AIR * p.defrostHeaterW * s.heaterFactor : 0) + (fanG > 0 ? FAN_HEAT_W : 0);
-      this.stepFreezer(dtS, s.roomC, doorG + leakFreezer, toFreezerG, supplyC, ductG, heatW);
+      const a = this.freezerPaths;
+      a.roomG = (p.freezerDoorExchangeWPerK * doorFactor * s.freezerDoorOpenS) / dtS + s.sealLeak * p.freezerUaWPerK;
+      a.supplyG = toFreezerG;
+      a.supplyC = supplyC;
+      a.otherG = p.coilNaturalWPerK + ductG / 2;
+      a.otherC = (p.coilNaturalWPerK * this.coilC + (ductG / 2) * this.fresh.airC) / a.otherG;
+      a.heatW = (s.heaterOn ? HEATER_SHARE_TO_AIR * p.defrostHeaterW * s.heaterFactor : 0) + (fanG > 0 ? FAN_HEAT_W : 0);
+      this.freezer.step(dtS, s.roomC, a, both ? p.partitionUaWPerK : 0, this.fresh.shellC);
     }
     this.growFrost(dtS, s);
-    this.freshExtraJPerK *= 1 - dtS / GROCERY_EATEN_TAU_S;
-    this.freezerExtraJPerK *= 1 - dtS / GROCERY_EATEN_TAU_S;
+    const eatenFactor = 1 - dtS / GROCERY_EATEN_TAU_S;
+    this.fresh.extraContentsJPerK *= eatenFactor;
+    this.freezer.extraContentsJPerK *= eatenFactor;
   }
 
   /** Updates the coil and its frost; returns the temperature of the air leaving the coil. */
-  private stepCoil(dtS: number, s: StepInputs, throughG: number, effectiveness: number, mixC: number, coilAirC: number): number {
+  private stepCoil(
+    dtS: number,
+    s: StepInputs,
+    throughG: number,
+    effectiveness: number,
+    mixC: number,
+    coilAirC: number,
+    ductHalfG: number,
+  ): number {
     const p = this.p;
     const airG = throughG * effectiveness;
     const compressorG = this.compressorConductance(s);
     const naturalG = p.coilNaturalWPerK;
     const heaterW = s.heaterOn ? (1 - HEATER_SHARE_TO_AIR) * p.defrostHeaterW * s.heaterFactor : 0;
     const capacityJPerK = COIL_METAL_J_PER_K + this.iceKg * ICE_J_PER_KG_K;
-    const sumG = airG + compressorG + naturalG;
-    const sumGTQ = airG * mixC + compressorG * COMPRESSOR_SINK_C + naturalG * coilAirC + heaterW;
+    const sumG = airG + compressorG + naturalG + ductHalfG;
+    const sumGTQ = airG * mixC + compressorG * COMPRESSOR_SINK_C + naturalG * coilAirC + ductHalfG * this.fresh.airC + heaterW;
     let coilC = relax(this.coilC, capacityJPerK, sumG, sumGTQ, dtS);
     if (coilC > 0 && this.iceKg > 0) {
       const meltKg = Math.min(this.iceKg, (coilC * capacityJPerK) / ICE_LATENT_J_PER_KG);
@@ -175,53 +202,10 @@ export class Cabinet {
     return mixC - effectiveness * (mixC - coilC);
   }
 
-  private stepFresh(dtS: number, roomC: number, extraRoomG: number, supplyG: number, supplyC: number, ductG: number, coilG: number): void {
-    const p = this.p;
-    const wallAirG = WALL_SHARE_TO_AIR * p.freshFoodUaWPerK + extraRoomG;
-    const contentsG = p.freshFoodAirToContentsWPerK;
-    const sumG = wallAirG + contentsG + supplyG + ductG + coilG;
-    const sumGT = wallAirG * roomC + contentsG * this.freshContentsC + supplyG * supplyC + ductG * this.freezerAirC + coilG * this.coilC;
-    this.freshAirC = relax(this.freshAirC, p.freshFoodAirJPerK, sumG, sumGT, dtS);
-    const wallG = (1 - WALL_SHARE_TO_AIR) * p.freshFoodUaWPerK;
-    const partitionG = this.hasFreezer ? p.partitionUaWPerK : 0;
-    const sumGc = wallG + contentsG + partitionG;
-    const sumGTc = wallG * roomC + contentsG * this.freshAirC + partitionG * this.freezerContentsC;
-    this.freshContentsC = relax(this.freshContentsC, p.freshFoodContentsJPerK + this.freshExtraJPerK, sumGc, sumGTc, dtS);
-  }
-
-  private stepFreezer(dtS: number, roomC: number, extraRoomG: number, supplyG: number, supplyC: number, ductG: number, heatW: number): void {
-    const p = this.p;
-    const wallAirG = WALL_SHARE_TO_AIR * p.freezerUaWPerK + extraRoomG;
-    const contentsG = p.freezerAirToContentsWPerK;
-    const coilG = p.coilNaturalWPerK;
-    const sumG = wallAirG + contentsG + supplyG + ductG + coilG;
-    const sumGT =
-      wallAirG * roomC + contentsG * this.freezerContentsC + supplyG * supplyC + ductG * this.freshAirC + coilG * this.coilC + heatW;
-    this.freezerAirC = relax(this.freezerAirC, p.freezerAirJPerK, sumG, sumGT, dtS);
-    const wallG = (1 - WALL_SHARE_TO_AIR) * p.freezerUaWPerK;
-    const partitionG = this.hasFresh ? p.partitionUaWPerK : 0;
-    const sumGc = wallG + contentsG + partitionG;
-    const sumGTc = wallG * roomC + contentsG * this.freezerAirC + partitionG * this.freshContentsC;
-    this.freezerContentsC = relax(this.freezerContentsC, p.freezerContentsJPerK + this.freezerExtraJPerK, sumGc, sumGTc, dtS);
-  }
-
   private growFrost(dtS: number, s: StepInputs): void {
     const perDayKg = this.p.iceGrowthKgPerDay + SEAL_FROST_KG_PER_DAY * s.sealLeak;
     const doorKg = DOOR_FROST_KG_PER_OPEN_S * (s.freshDoorOpenS + s.freezerDoorOpenS);
     // Frost only settles on a coil below freezing.
     if (this.coilC < 0) this.iceKg += (perDayKg * dtS) / 86_400 + doorKg;
-  }
-
-  /** Warm groceries mixed into a compartment's contents (energy-conserving). */
-  addContents(toFreezer: boolean, capacityJPerK: number, tempC: number): void {
-    if (toFreezer) {
-      const total = this.p.freezerContentsJPerK + this.freezerExtraJPerK;
-      this.freezerContentsC = (total * this.freezerContentsC + capacityJPerK * tempC) / (total + capacityJPerK);
-      this.freezerExtraJPerK += capacityJPerK;
-      return;
-    }
-    const total = this.p.freshFoodContentsJPerK + this.freshExtraJPerK;
-    this.freshContentsC = (total * this.freshContentsC + capacityJPerK * tempC) / (total + capacityJPerK);
-    this.freshExtraJPerK += capacityJPerK;
   }
 }

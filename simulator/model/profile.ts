@@ -20,32 +20,37 @@ import { logUniform, pick, Rng, uniform } from './rng';
 
 const TOP_FREEZER: ApplianceProfile = {
   style: 'top-freezer',
-  freshFoodSetpointC: 3,
+  freshFoodSetpointC: 2.5,
   freezerSetpointC: -18,
   freshFoodHysteresisK: 1.5,
   freezerHysteresisK: 2,
   compressorMinOffS: 300,
   compressorMinOnS: 180,
-  freshFoodContentsJPerK: 160_000,
+  freshFoodContentsJPerK: 100_000,
   freezerContentsJPerK: 110_000,
-  freshFoodAirJPerK: 5_000,
-  freezerAirJPerK: 3_000,
+  freshFoodAirJPerK: 2_000,
+  freezerAirJPerK: 1_200,
+  freshFoodShellJPerK: 25_000,
+  freezerShellJPerK: 15_000,
   freshFoodUaWPerK: 1.0,
   freezerUaWPerK: 0.75,
-  partitionUaWPerK: 0.35,
-  freshFoodAirToContentsWPerK: 8,
-  freezerAirToContentsWPerK: 6,
-  compressorCapacityW: 130,
+  partitionUaWPerK: 0.25,
+  freshFoodAirToShellWPerK: 25,
+  freezerAirToShellWPerK: 15,
+  freshFoodAirToContentsWPerK: 15,
+  freezerAirToContentsWPerK: 10,
+  thermostatLagS: 900,
+  compressorCapacityW: 100,
   hasEvaporatorFan: true,
   evaporatorAirflowWPerK: 18,
-  freshFoodAirShare: 0.3,
-  damperLeakShare: 0.03,
+  freshFoodAirShare: 0.15,
+  damperLeakShare: 0.01,
   coilNaturalWPerK: 1.0,
   ductNaturalWPerK: 0.3,
   defrostIntervalH: 10,
   defrostDurationMin: 30,
-  defrostHeaterW: 450,
-  iceGrowthKgPerDay: 0.15,
+  defrostHeaterW: 350,
+  iceGrowthKgPerDay: 0.4,
   doorOpeningsPerDay: 30,
   freezerDoorShare: 0.2,
   doorOpenMeanS: 20,
@@ -162,7 +167,10 @@ function chooseDefrost(p: ApplianceProfile, rng: Rng): void {
   if (p.defrostIntervalH === null) return;
   p.defrostIntervalH = logUniform(rng, 6, 72);
   p.defrostDurationMin = uniform(rng, 20, 45);
-  p.defrostHeaterW = uniform(rng, 300, 650);
+  p.defrostHeaterW = uniform(rng, 250, 600);
+  // Adaptive controls stretch the interval where little frost forms: keep one interval's frost
+  // below the 0.5 kg at which the fresh-food duct starts to choke.
+  p.iceGrowthKgPerDay = Math.min(p.iceGrowthKgPerDay, (0.4 * 24) / p.defrostIntervalH);
 }
 
 function chooseHabits(p: ApplianceProfile, rng: Rng): void {

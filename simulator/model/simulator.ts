@@ -25,6 +25,19 @@ const FROZEN_GROCERY_J_PER_KG_K = 2500;
 const FRESH_GROCERY_C = 12;
 const FROZEN_GROCERY_C = -5;
 
+/** What a real sensor cannot see: true air and food temperatures, coil, frost, room. */
+export interface SimTruth {
+  freshAirC: number;
+  freshFoodC: number;
+  freezerAirC: number;
+  freezerFoodC: number;
+  coilC: number;
+  iceKg: number;
+  roomC: number;
+  defrosting: boolean;
+  fanRunning: boolean;
+}
+
 interface PendingLoad {
   atMs: number;
   kg: number;
@@ -109,7 +122,7 @@ export class ApplianceSimulator {
     resolveFaults(this.faults, fromMs, this.effects);
     this.doors.step(fromMs, toMs);
     while (this.loads.length > 0 && this.loads[0].atMs < toMs) this.loadGroceries(this.loads.shift()!, toMs);
-    this.controls.update(fromMs, dtS, c.freshAirC, c.freezerAirC, c.coilC, this.effects);
+    this.controls.update(fromMs, dtS, c.fresh.sensedC, c.freezer.sensedC, c.coilC, this.effects);
     this.fillInputs(fromMs);
     c.step(dtS, this.inputs);
   }
@@ -139,11 +152,11 @@ export class ApplianceSimulator {
     const freshKg = load.kg * (1 - freezerShare);
     const frozenKg = load.kg * freezerShare;
     if (freshKg > 0) {
-      this.cabinet.addContents(false, freshKg * FRESH_GROCERY_J_PER_KG_K, FRESH_GROCERY_C);
+      this.cabinet.fresh.addContents(freshKg * FRESH_GROCERY_J_PER_KG_K, FRESH_GROCERY_C);
       this.doors.openFor(this.doors.freshFood, load.atMs, 90, stepEndMs);
     }
     if (frozenKg > 0) {
-      this.cabinet.addContents(true, frozenKg * FROZEN_GROCERY_J_PER_KG_K, FROZEN_GROCERY_C);
+      this.cabinet.freezer.addContents(frozenKg * FROZEN_GROCERY_J_PER_KG_K, FROZEN_GROCERY_C);
       this.doors.openFor(this.doors.freezer, load.atMs, 30, stepEndMs);
     }
   }
@@ -154,8 +167,8 @@ export class ApplianceSimulator {
     if (rng() < this.profile.lossProbability) return null;
     resolveFaults(this.faults, this.currentMs, this.effects);
     const c = this.cabinet;
-    const freshFoodC = this.hasFresh ? this.freshProbe.read(c.freshAirC, this.effects.freshFood, rng) : null;
-    const freezerC = this.hasFreezer ? this.freezerProbe.read(c.freezerAirC, this.effects.freezer, rng) : null;
+    const freshFoodC = this.hasFresh ? this.freshProbe.read(c.fresh.airC, this.effects.freshFood, rng) : null;
+    const freezerC = this.hasFreezer ? this.freezerProbe.read(c.freezer.airC, this.effects.freezer, rng) : null;
     if (freshFoodC === null && freezerC === null) return null;
     return {
       atMs: this.currentMs,
@@ -174,11 +187,13 @@ export class ApplianceSimulator {
   }
 
   /** Ground truth for tests and demos: the true air temperatures and machine state. */
-  truth(): { freshAirC: number; freezerAirC: number; coilC: number; iceKg: number; roomC: number; defrosting: boolean; fanRunning: boolean } {
+  truth(): SimTruth {
     const c = this.cabinet;
     return {
-      freshAirC: c.freshAirC,
-      freezerAirC: c.freezerAirC,
+      freshAirC: c.fresh.airC,
+      freshFoodC: c.fresh.contentsC,
+      freezerAirC: c.freezer.airC,
+      freezerFoodC: c.freezer.contentsC,
       coilC: c.coilC,
       iceKg: c.iceKg,
       roomC: this.climate.tempC(this.currentMs),

@@ -1,13 +1,12 @@
 /**
  * Public types of the appliance simulator model.
  *
- * The profile describes one appliance as a lumped thermal network (see physics.ts):
- * per compartment an "air" node (cabinet air plus shelf surfaces and the probe, a few kJ/K,
- * minutes of time constant) and a "contents" node (food, liner, shelves: tens to hundreds
- * of kJ/K, hours of time constant), one evaporator coil node in the freezer section (or in
- * the fresh-food section of a fresh-food-only unit) cooled by the compressor and warmed by
- * the defrost heater, and a fan that pushes coil air to the freezer and, through a damper,
- * to the fresh-food section. Every number is in SI units with the unit in its name.
+ * The profile describes one appliance as a lumped thermal network (see physics.ts and
+ * compartment.ts): per compartment an air node (air and probe, seconds to a minute), a shell
+ * node (liner and shelves, tens of minutes) and a contents node (the food, hours), one
+ * evaporator coil node in the freezer section (in the fresh-food section of a fresh-food-only
+ * unit) cooled by the compressor and warmed by the defrost heater, and a fan that pushes coil
+ * air to the freezer and, through a damper, to the fresh-food section. Every number is in SI units with the unit in its name.
  */
 import type { ApplianceStyle, CauseCode, Probe } from '../../shared/domain';
 
@@ -36,17 +35,24 @@ export interface ApplianceProfile {
   /** Heat capacity of food + liner + shelves. */
   freshFoodContentsJPerK: number;
   freezerContentsJPerK: number;
-  /** Heat capacity of the air node (air, shelf surfaces, the probe). */
+  /** Heat capacity of the air node (air, the probe, light fittings). */
   freshFoodAirJPerK: number;
   freezerAirJPerK: number;
-  /** Conductance of walls and gasket to the room (all of it; physics splits it air/liner). */
+  /** Heat capacity of the shell node (liner, shelves, drawers). */
+  freshFoodShellJPerK: number;
+  freezerShellJPerK: number;
+  /** Conductance of walls and gasket to the room (all of it; 90 % reaches the shell). */
   freshFoodUaWPerK: number;
   freezerUaWPerK: number;
-  /** Conductance of the insulated partition between the compartments' contents. */
+  /** Conductance of the insulated partition between the compartments' shells. */
   partitionUaWPerK: number;
-  /** Convection between each air node and its contents. */
+  /** Convection between each air node and its shell, and its contents. */
+  freshFoodAirToShellWPerK: number;
+  freezerAirToShellWPerK: number;
   freshFoodAirToContentsWPerK: number;
   freezerAirToContentsWPerK: number;
+  /** Time constant of the control board's thermostat sensors following the air. */
+  thermostatLagS: number;
 
   /** Compressor capacity at a −25 °C coil and a 25 °C room. */
   compressorCapacityW: number;

@@ -1,0 +1,94 @@
+/**
+ * One compartment as three lumped nodes, updated with the exact exponential step of
+ * relax(): each node relaxes toward the conductance-weighted mean of its neighbours and
+ * sources, neighbours held for the step (Gauss–Seidel order air → shell → contents). This is
+ * stable for any step, so a 20 s step can carry an air node of well under a minute.
+ * - air: the cabinet air, the probe and light fittings (1–3 kJ/K); the probe reads it;
+ * - shell: liner, shelves and drawers (15–40 kJ/K), which take 90 % of the wall heat;
+ * - contents: the food (tens to hundreds of kJ/K), reached only through the air.
+ * A thermostat sensor in a plastic housing follows the air with a lag of several minutes
+ * (common practice of control boards), which sets the length of the compressor cycles.
+ * Food freezes and thaws between −2.5 and −0.5 °C: the latent heat of its water (70 % water,
+ * 334 kJ/kg, with 2 kJ/(kg·K) for frozen food: common practice, from memory) is spread over
+ * that range as extra heat capacity, which is what lets a full freezer hold for about two days
+ * without power (USDA FSIS, "Keeping Food Safe During an Emergency": about 48 h).
+ */
+
+export const WALL_SHARE_TO_AIR = 0.1;
+const FREEZING_FROM_C = -2.5;
+const FREEZING_TO_C = -0.5;
+/** Latent heat per J/K of contents: (1 / 2000 J/(kg·K)) kg × 0.7 water × 334 kJ/kg. */
+const LATENT_J_PER_CONTENTS_J_PER_K = (0.7 * 334_000) / 2000;
+const LATENT_EXTRA_FACTOR = LATENT_J_PER_CONTENTS_J_PER_K / (FREEZING_TO_C - FREEZING_FROM_C);
+
+export function relax(tempC: number, capacityJPerK: number, sumG: number, sumGTQ: number, dtS: number): number {
+  const equilibriumC = sumGTQ / sumG;
+  return equilibriumC + (tempC - equilibriumC) * Math.exp((-dtS * sumG) / capacityJPerK);
+}
+
+export interface CompartmentParams {
+  airJPerK: number;
+  shellJPerK: number;
+  contentsJPerK: number;
+  uaWPerK: number;
+  airToShellWPerK: number;
+  airToContentsWPerK: number;
+  thermostatLagS: number;
+}
+
+/** Heat paths into the air node that change from step to step. */
+export interface AirPaths {
+  /** Extra conductance to the room (open door, torn gasket). */
+  roomG: number;
+  /** Fan stream arriving from the coil, and its temperature. */
+  supplyG: number;
+  supplyC: number;
+  /** Natural convection to another body (coil or the other compartment's air). */
+  otherG: number;
+  otherC: number;
+  /** Direct heat (fan motor, radiation from the defrost heater). */
+  heatW: number;
+}
+
+export function newAirPaths(): AirPaths {
+  return { roomG: 0, supplyG: 0, supplyC: 0, otherG: 0, otherC: 0, heatW: 0 };
+}
+
+export class Compartment {
+  airC: number;
+  shellC: number;
+  contentsC: number;
+  sensedC: number;
+  extraContentsJPerK = 0;
+
+  constructor(
+    readonly params: CompartmentParams,
+    startC: number,
+  ) {
+    this.airC = this.shellC = this.contentsC = this.sensedC = startC;
+  }
+
+  step(dtS: number, roomC: number, air: AirPaths, partitionG: number, partitionC: number): void {
+    const p = this.params;
+    const roomAirG = WALL_SHARE_TO_AIR * p.uaWPerK + air.roomG;
+    const sumAirG = roomAirG + p.airToShellWPerK + p.airToContentsWPerK + air.supplyG + air.otherG;
+    const sumAirGT = roomAirG * roomC + p.airToShellWPerK * this.shellC + p.airToContentsWPerK * this.contentsC
+      + air.supplyG * air.supplyC + air.otherG * air.otherC + air.heatW;
+    this.airC = relax(this.airC, p.airJPerK, sumAirG, sumAirGT, dtS);
+    const wallG = (1 - WALL_SHARE_TO_AIR) * p.uaWPerK;
+    const sumShellG = wallG + p.airToShellWPerK + partitionG;
+    const sumShellGT = wallG * roomC + p.airToShellWPerK * this.airC + partitionG * partitionC;
+    this.shellC = relax(this.shellC, p.shellJPerK, sumShellG, sumShellGT, dtS);
+    let contentsJPerK = p.contentsJPerK + this.extraContentsJPerK;
+    if (this.contentsC > FREEZING_FROM_C && this.contentsC < FREEZING_TO_C) contentsJPerK *= 1 + LATENT_EXTRA_FACTOR;
+    this.contentsC = relax(this.contentsC, contentsJPerK, p.airToContentsWPerK, p.airToContentsWPerK * this.airC, dtS);
+    this.sensedC += (this.airC - this.sensedC) * (1 - Math.exp(-dtS / p.thermostatLagS));
+  }
+
+  /** Warm groceries mixed into the contents (energy-conserving); they are eaten over days. */
+  addContents(capacityJPerK: number, tempC: number): void {
+    const total = this.params.contentsJPerK + this.extraContentsJPerK;
+    this.contentsC = (total * this.contentsC + capacityJPerK * tempC) / (total + capacityJPerK);
+    this.extraContentsJPerK += capacityJPerK;
+  }
+}
