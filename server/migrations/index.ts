@@ -1,4 +1,5 @@
 // Migrations in the order they run. Add a new one at the end (see DEVELOPERS.md).
 import { CoreSchema1764633600000 } from './1764633600000-core-schema';
+import { TelemetryStorage1796163938389 } from './1796163938389-telemetry-storage';
 
-export const MIGRATIONS = [CoreSchema1764633600000];
+export const MIGRATIONS = [CoreSchema1764633600000, TelemetryStorage1796163938389];
