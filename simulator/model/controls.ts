@@ -5,7 +5,7 @@
  * - the compressor relay closes while either compartment demands, with a minimum off time (to
  *   let the pressures equalise before a restart) and a minimum on time;
  * - the evaporator fan runs whenever the relay is closed (also if the compressor fails to start);
- * - the damper opens while the fresh-food section demands;
+ * - the damper opens while the fresh-food section demands (and stays put without power);
  * - automatic defrost every `defrostIntervalH` hours of powered time: compressor and fan stop,
  *   the heater runs until the coil reaches +10 °C (termination thermostat) or 4 min before the
  *   end, then the drip time lets the water run off.
@@ -52,7 +52,8 @@ export class Controls {
     this.compressorRunning = this.relayClosed && effects.compressorCanRun;
     this.fanRunning = this.relayClosed;
     this.heaterOn = powered && this.defrosting && !this.heaterDone;
-    this.damperOpen = this.freshDemand;
+    // A motorised damper stays where it was when the power goes.
+    if (powered) this.damperOpen = this.freshDemand;
   }
 
   private advanceDefrost(dtS: number, coilC: number): void {

@@ -32,6 +32,7 @@ const FAN_HEAT_W = 3;
 const DOOR_FROST_KG_PER_OPEN_S = 0.00008;
 const SEAL_FROST_KG_PER_DAY = 0.4;
 const GROCERY_EATEN_TAU_S = 4 * 86_400;
+const CLOSED_DUCT_NATURAL_SHARE = 0.3;
 
 /** What the controls and faults set for one step. */
 export interface StepInputs {
@@ -68,6 +69,11 @@ export function newStepInputs(): StepInputs {
   };
 }
 
+/** 1 = damper fully open, 0 = closed (by the controls or stuck by a fault). */
+function damperOpening(s: StepInputs): number {
+  return s.damperOpen ? 1 - s.damperClosed : 0;
+}
+
 /** 0 below `start`, 1 above `full`, smooth in between. */
 function smoothStep(value: number, start: number, full: number): number {
   if (value <= start) return 0;
@@ -97,7 +103,7 @@ export class Cabinet {
         uaWPerK: p.freshFoodUaWPerK,
         airToShellWPerK: p.freshFoodAirToShellWPerK,
         airToContentsWPerK: p.freshFoodAirToContentsWPerK,
-        thermostatLagS: p.thermostatLagS,
+        thermostatLagS: p.freshFoodThermostatLagS,
       },
       p.freshFoodSetpointC,
     );
@@ -109,7 +115,7 @@ export class Cabinet {
         uaWPerK: p.freezerUaWPerK,
         airToShellWPerK: p.freezerAirToShellWPerK,
         airToContentsWPerK: p.freezerAirToContentsWPerK,
-        thermostatLagS: p.thermostatLagS,
+        thermostatLagS: p.freezerThermostatLagS,
       },
       p.freezerSetpointC,
     );
@@ -120,8 +126,7 @@ export class Cabinet {
   private freshShare(s: StepInputs): number {
     if (!this.hasFresh) return 0;
     if (!this.hasFreezer) return 1;
-    const open = s.damperOpen ? 1 - s.damperClosed : 0;
-    return this.p.damperLeakShare + (this.p.freshFoodAirShare - this.p.damperLeakShare) * open;
+    return this.p.damperLeakShare + (this.p.freshFoodAirShare - this.p.damperLeakShare) * damperOpening(s);
   }
 
   private compressorConductance(s: StepInputs): number {
@@ -144,7 +149,9 @@ export class Cabinet {
     const mixC = throughG > 0 ? (toFreshG * this.fresh.airC + toFreezerG * this.freezer.airC) / throughG : 0;
     const coilAir = this.hasFreezer ? this.freezer : this.fresh;
     const both = this.hasFresh && this.hasFreezer;
-    const ductG = both && throughG === 0 ? p.ductNaturalWPerK * freshBlock * (1 - 0.9 * s.damperClosed) : 0;
+    // A closed damper also blocks most of the natural flow through the duct.
+    const ductOpening = CLOSED_DUCT_NATURAL_SHARE + (1 - CLOSED_DUCT_NATURAL_SHARE) * damperOpening(s);
+    const ductG = both && throughG === 0 ? p.ductNaturalWPerK * freshBlock * ductOpening : 0;
     const supplyC = this.stepCoil(dtS, s, throughG, effectiveness, mixC, coilAir.airC, ductG / 2);
     const doorFactor = 1 + s.sealLeak;
     if (this.hasFresh) {

@@ -26,7 +26,7 @@ const TOP_FREEZER: ApplianceProfile = {
   freezerHysteresisK: 2,
   compressorMinOffS: 300,
   compressorMinOnS: 180,
-  freshFoodContentsJPerK: 100_000,
+  freshFoodContentsJPerK: 120_000,
   freezerContentsJPerK: 110_000,
   freshFoodAirJPerK: 2_000,
   freezerAirJPerK: 1_200,
@@ -39,7 +39,8 @@ const TOP_FREEZER: ApplianceProfile = {
   freezerAirToShellWPerK: 15,
   freshFoodAirToContentsWPerK: 15,
   freezerAirToContentsWPerK: 10,
-  thermostatLagS: 900,
+  freshFoodThermostatLagS: 300,
+  freezerThermostatLagS: 900,
   compressorCapacityW: 100,
   hasEvaporatorFan: true,
   evaporatorAirflowWPerK: 18,
@@ -74,15 +75,15 @@ const TOP_FREEZER: ApplianceProfile = {
 const STYLE_CHANGES: Record<ApplianceStyle, Partial<ApplianceProfile>> = {
   'top-freezer': {},
   // The freezer drawer is opened from above, so less cold air spills out.
-  'bottom-freezer': { freshFoodAirShare: 0.35, freezerDoorExchangeWPerK: 7, freezerDoorShare: 0.25 },
+  'bottom-freezer': { freshFoodAirShare: 0.18, freezerDoorExchangeWPerK: 7, freezerDoorShare: 0.25 },
   // A tall partition (mullion) and a tall freezer door.
-  'side-by-side': { partitionUaWPerK: 0.6, freezerUaWPerK: 0.9, freezerDoorShare: 0.3, compressorCapacityW: 150 },
+  'side-by-side': { partitionUaWPerK: 0.4, freezerUaWPerK: 0.9, freezerDoorShare: 0.3, compressorCapacityW: 150 },
   // Evaporator in the fresh-food section, off-cycle defrost (the coil warms above 0 °C each off period).
   'fresh-food-only': {
     freshFoodContentsJPerK: 200_000,
     freshFoodUaWPerK: 1.3,
     compressorCapacityW: 80,
-    evaporatorAirflowWPerK: 12,
+    evaporatorAirflowWPerK: 6,
     coilNaturalWPerK: 2,
     defrostIntervalH: null,
     iceGrowthKgPerDay: 0.1,
@@ -151,11 +152,11 @@ function scaleCabinet(p: ApplianceProfile, rng: Rng): void {
   p.coilNaturalWPerK *= wallScale * uniform(rng, 0.8, 1.25);
 }
 
-/** Bands first, then a setpoint that keeps the band inside 1.2–4.6 °C / below −17 °C. */
+/** Bands first, then a setpoint that keeps the band inside 1.5–4.4 °C / below −17 °C. */
 function chooseControls(p: ApplianceProfile, rng: Rng): void {
   p.freshFoodHysteresisK = uniform(rng, 1, 2);
   const halfFresh = p.freshFoodHysteresisK / 2;
-  p.freshFoodSetpointC = uniform(rng, 1.2 + halfFresh, 4.4 - halfFresh);
+  p.freshFoodSetpointC = uniform(rng, 1.5 + halfFresh, 4.4 - halfFresh);
   p.freezerHysteresisK = uniform(rng, 1.5, 3);
   p.freezerSetpointC = uniform(rng, -24, -17 - p.freezerHysteresisK / 2);
   p.compressorMinOffS = uniform(rng, 180, 480);

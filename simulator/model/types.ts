@@ -51,8 +51,9 @@ export interface ApplianceProfile {
   freezerAirToShellWPerK: number;
   freshFoodAirToContentsWPerK: number;
   freezerAirToContentsWPerK: number;
-  /** Time constant of the control board's thermostat sensors following the air. */
-  thermostatLagS: number;
+  /** Time constants of the control board's thermostat sensors following the air. */
+  freshFoodThermostatLagS: number;
+  freezerThermostatLagS: number;
 
   /** Compressor capacity at a −25 °C coil and a 25 °C room. */
   compressorCapacityW: number;
