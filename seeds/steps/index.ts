@@ -1,4 +1,5 @@
 // The demo scenario's steps, in the order they run. Add a step here.
 import type { SeedStep } from '../context';
+import { fleetStep } from './fleet';
 
-export const SEED_STEPS: SeedStep[] = [];
+export const SEED_STEPS: SeedStep[] = [fleetStep];
