@@ -12,6 +12,7 @@ export interface DetectionSettings {
   foodAtRiskMinutes: number;
   freshOverTempGraceMinutes: number;
   freezerOverTempGraceMinutes: number;
+  freezerAlarmMarginC: number;
   overTempDipToleranceMinutes: number;
   sentinelValuesC: number[];
   sentinelToleranceC: number;
@@ -45,6 +46,7 @@ export interface DetectionSettings {
   noCoolingFreshRiseC: number;
   noCoolingFreezerRiseC: number;
   noCoolingSlopeCPerHour: number;
+  noCoolingSlopeWindowMinutes: number;
   recoveredBandC: number;
   recoveredHoldMinutes: number;
   cycleSmoothingMinutes: number;
@@ -72,6 +74,7 @@ export const SETTING_DOCS: Record<keyof DetectionSettings, SettingDoc & { value:
   foodAtRiskMinutes: { value: DANGER_ZONE_DISCARD_MINUTES, unit: 'min', reason: 'perishables above 40 °F for more than 2 hours are discarded: USDA FSIS "Danger Zone"' },
   freshOverTempGraceMinutes: { value: 60, unit: 'min', reason: 'longer than a door opening or a defrost keeps the fresh-food air above 40 °F, and half of the USDA 2-hour allowance so the alarm leaves time to act (common practice)' },
   freezerOverTempGraceMinutes: { value: 90, unit: 'min', reason: 'an automatic defrost lasts roughly 20–45 minutes plus its recovery (common practice, from memory); a full freezer holds for about 48 h (USDA FSIS) so a longer grace costs nothing' },
+  freezerAlarmMarginC: { value: 1.5, unit: '°C', reason: 'freezer air cycles about ±1–1.5 °C around a 0 °F set point with the thermostat, while the food stays near the set point; the freezer alarm sits this far above the limit so a healthy unit set at 0 °F does not alarm half of each cycle (common practice)' },
   overTempDipToleranceMinutes: { value: 10, unit: 'min', reason: 'a compressor cycle may dip the air below the limit briefly without the food cooling (common practice)' },
   sentinelValuesC: { value: [-127, 85], unit: '°C', reason: 'values one-wire digital probes report when disconnected (−127) or read before a conversion after power-on (85, the power-on reset value of the register) (common practice)' },
   sentinelToleranceC: { value: 0.01, unit: '°C', reason: 'sentinels are exact codes, not measurements' },
@@ -96,15 +99,16 @@ export const SETTING_DOCS: Record<keyof DetectionSettings, SettingDoc & { value:
   cusumReferenceSigma: { value: 1, unit: 'σ', reason: 'tabular CUSUM reference value K; larger than the textbook 0.5σ because the level series is autocorrelated (Montgomery, Introduction to SQC, ch. 9)' },
   cusumDecisionSigma: { value: 8, unit: 'σ', reason: 'tabular CUSUM decision interval H, raised from the textbook 5σ for the same reason' },
   freshMinRiseC: { value: 1.5, unit: '°C', reason: 'a warming trend must lift the fresh-food level at least this far above its own normal (common practice)' },
-  freezerMinRiseC: { value: 3, unit: '°C', reason: 'same for the freezer, which swings wider in normal use (common practice)' },
+  freezerMinRiseC: { value: 2, unit: '°C', reason: 'same for the freezer, which swings wider in normal use (common practice)' },
   sustainMinutes: { value: 45, unit: 'min', reason: 'the rise must last this long above the threshold before it is a trend' },
   slopeWindowMinutes: { value: 120, unit: 'min', reason: 'window of the robust (Theil–Sen) slope that tells a recovering grocery load from a failure' },
   recoveringSlopeCPerHour: { value: -0.3, unit: '°C/h', reason: 'a level falling faster than this is recovering by itself and is not a trend' },
   forecastWindowMinutes: { value: 180, unit: 'min', reason: 'least-squares window of the crossing forecast' },
   forecastHorizonHours: { value: 72, unit: 'h', reason: 'crossings forecast further ahead than this are not shown' },
-  noCoolingFreshRiseC: { value: 6, unit: '°C', reason: 'fresh food this far above normal and still rising is heading for room temperature (common practice)' },
+  noCoolingFreshRiseC: { value: 4, unit: '°C', reason: 'fresh food this far above normal and still rising is heading for room temperature (common practice)' },
   noCoolingFreezerRiseC: { value: 12, unit: '°C', reason: 'freezer this far above normal and still rising has lost its cooling (common practice)' },
-  noCoolingSlopeCPerHour: { value: 0.2, unit: '°C/h', reason: 'still rising at least this fast' },
+  noCoolingSlopeCPerHour: { value: 0.5, unit: '°C/h', reason: 'still climbing at least this fast: a stopped evaporator fan levels off short of room temperature, a dead compressor keeps climbing (common practice)' },
+  noCoolingSlopeWindowMinutes: { value: 240, unit: 'min', reason: 'window of that slope, long enough that a defrost rise does not tilt it' },
   recoveredBandC: { value: 1, unit: '°C', reason: 'a compartment within this of its baseline (and below its limit) has recovered' },
   recoveredHoldMinutes: { value: 120, unit: 'min', reason: 'it must stay recovered this long before a finding closes (hysteresis)' },
   cycleSmoothingMinutes: { value: 60, unit: 'min', reason: 'time constant of the running mean the compressor cycle oscillates around' },

@@ -32,17 +32,23 @@ export function leastSquares(xs: ArrayLike<number>, ys: ArrayLike<number>, count
   return { slope, intercept: meanY - slope * meanX };
 }
 
-/** Theil–Sen slope: the median of the slopes between every pair of points. */
-export function theilSenSlope(xs: ArrayLike<number>, ys: ArrayLike<number>, count = xs.length): number | null {
-  const slopes: number[] = [];
-  for (let i = 0; i < count; i++) {
-    for (let j = i + 1; j < count; j++) {
+const pairSlopes: number[] = [];
+
+/**
+ * Theil–Sen slope: the median of the slopes between every pair of points, over
+ * xs[start .. start + count). Reuses one scratch array (the engine calls it once per bucket).
+ */
+export function theilSenSlope(xs: ArrayLike<number>, ys: ArrayLike<number>, start = 0, count = xs.length - start): number | null {
+  pairSlopes.length = 0;
+  const end = start + count;
+  for (let i = start; i < end; i++) {
+    for (let j = i + 1; j < end; j++) {
       const dx = xs[j] - xs[i];
-      if (dx !== 0) slopes.push((ys[j] - ys[i]) / dx);
+      if (dx !== 0) pairSlopes.push((ys[j] - ys[i]) / dx);
     }
   }
-  if (slopes.length === 0) return null;
-  slopes.sort((a, b) => a - b);
-  const middle = slopes.length >> 1;
-  return slopes.length % 2 ? slopes[middle] : (slopes[middle - 1] + slopes[middle]) / 2;
+  if (pairSlopes.length === 0) return null;
+  pairSlopes.sort((a, b) => a - b);
+  const middle = pairSlopes.length >> 1;
+  return pairSlopes.length % 2 ? pairSlopes[middle] : (pairSlopes[middle - 1] + pairSlopes[middle]) / 2;
 }

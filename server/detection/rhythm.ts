@@ -1,0 +1,130 @@
+/**
+ * The appliance's normal rhythm, learned from every valid reading: the compressor cycle
+ * (crossings of a running mean with hysteresis), the automatic defrost (brief freezer rises
+ * without a door opening, 20–45 minutes by common practice), and the door pattern.
+ */
+import type { DetectionSettings } from './settings';
+import { pushRing, type DefrostEvent, type EngineState, type ProbeRhythm } from './state';
+import { lambdaForGap } from './stats/ewma';
+import { median } from './stats/robust';
+
+const MINUTE_MS = 60_000;
+const HOUR_MS = 60 * MINUTE_MS;
+const PERIOD_RING = 16;
+const DEFROST_RING = 12;
+const MIN_CYCLE_MIN = 8;
+const MAX_CYCLE_MIN = 600;
+/** A defrost keeps the air up for more than a few minutes; a door opening recovers faster. */
+const DEFROST_MIN_MINUTES = 10;
+
+/** Tracks crossings of the running mean; returns nothing, updates the ring of periods. */
+export function trackCycle(r: ProbeRhythm, valueC: number, atMs: number, gapMs: number, settings: DetectionSettings): void {
+  if (r.smoothC === null) {
+    r.smoothC = valueC;
+    return;
+  }
+  r.smoothC += lambdaForGap(gapMs, settings.cycleSmoothingMinutes * MINUTE_MS) * (valueC - r.smoothC);
+  const deviationC = valueC - r.smoothC;
+  if (r.side <= 0 && deviationC > settings.cycleHysteresisC) {
+    if (r.side < 0 && r.lastUpCrossingMs !== null) {
+      const periodMin = (atMs - r.lastUpCrossingMs) / MINUTE_MS;
+      if (periodMin >= MIN_CYCLE_MIN && periodMin <= MAX_CYCLE_MIN) pushRing(r.periodsMin, periodMin, PERIOD_RING);
+    }
+    r.side = 1;
+    r.lastUpCrossingMs = atMs;
+  } else if (r.side >= 0 && deviationC < -settings.cycleHysteresisC) {
+    r.side = -1;
+  }
+}
+
+export function cyclePeriodMinutes(r: ProbeRhythm, intervalMin: number | null): number | null {
+  if (r.periodsMin.length < 4) return null;
+  const period = median(r.periodsMin);
+  // A cycle sampled fewer than four times per period cannot be told from aliasing.
+  if (intervalMin !== null && period < 4 * intervalMin) return null;
+  return period;
+}
+
+/**
+ * Watches the probe that carries the defrost (the freezer, or the fresh food of a
+ * fresh-food-only unit) for brief rises above its level.
+ */
+export function trackExcursion(
+  state: EngineState,
+  r: ProbeRhythm,
+  valueC: number,
+  referenceC: number | null,
+  atMs: number,
+  settings: DetectionSettings,
+): void {
+  if (r.excursionStartMs === null) {
+    if (referenceC === null || valueC <= referenceC + settings.excursionRiseC) return;
+    r.excursionStartMs = atMs;
+    r.excursionReferenceC = referenceC;
+    r.excursionPeakC = valueC - referenceC;
+    r.excursionDoor = state.doorOpen;
+    return;
+  }
+  r.excursionPeakC = Math.max(r.excursionPeakC, valueC - r.excursionReferenceC);
+  r.excursionDoor ||= state.doorOpen;
+  const durationMin = (atMs - r.excursionStartMs) / MINUTE_MS;
+  if (durationMin > 4 * settings.defrostMaxMinutes) {
+    r.excursionStartMs = null; // a long warm spell is not a defrost; the trend logic judges it
+    return;
+  }
+  if (valueC >= r.excursionReferenceC + settings.excursionRiseC / 2) return;
+  if (!r.excursionDoor && durationMin >= DEFROST_MIN_MINUTES && durationMin <= settings.defrostMaxMinutes) {
+    recordDefrost(state, { atMs: r.excursionStartMs, riseC: r.excursionPeakC, durationMin }, settings);
+  }
+  r.excursionStartMs = null;
+}
+
+function recordDefrost(state: EngineState, event: DefrostEvent, settings: DetectionSettings): void {
+  const last = state.defrosts[state.defrosts.length - 1];
+  if (last && event.atMs - last.atMs < settings.defrostMinSpacingHours * HOUR_MS) {
+    // Two rises close together are one defrost and its aftermath (or a door): keep the larger.
+    if (event.riseC > last.riseC) state.defrosts[state.defrosts.length - 1] = { ...event, atMs: last.atMs };
+    state.defrostDurationMin = defrostRhythm(state.defrosts).durationMinutes;
+    return;
+  }
+  state.defrosts.push(event);
+  if (state.defrosts.length > DEFROST_RING) state.defrosts.shift();
+  state.defrostDurationMin = defrostRhythm(state.defrosts).durationMinutes;
+}
+
+export interface DefrostRhythm {
+  intervalHours: number | null;
+  riseC: number | null;
+  durationMinutes: number | null;
+  lastAtMs: number | null;
+}
+
+export function defrostRhythm(defrosts: readonly DefrostEvent[]): DefrostRhythm {
+  const lastAtMs = defrosts.length ? defrosts[defrosts.length - 1].atMs : null;
+  if (defrosts.length < 2) return { intervalHours: null, riseC: null, durationMinutes: null, lastAtMs };
+  const intervals: number[] = [];
+  for (let i = 1; i < defrosts.length; i++) intervals.push((defrosts[i].atMs - defrosts[i - 1].atMs) / HOUR_MS);
+  return {
+    intervalHours: median(intervals),
+    riseC: median(defrosts.map((d) => d.riseC)),
+    durationMinutes: median(defrosts.map((d) => d.durationMin)),
+    lastAtMs,
+  };
+}
+
+/** Counts door openings from the door switch (rising edges), by hour of day. */
+export function trackDoor(state: EngineState, doorOpen: boolean | undefined, atMs: number): void {
+  if (doorOpen === undefined) return;
+  state.doorFlagsSeen = true;
+  if (doorOpen && !state.doorOpen) {
+    state.doorOpenings++;
+    state.doorOpeningsByHourUtc[Math.floor(atMs / HOUR_MS) % 24]++;
+  }
+  state.doorOpen = doorOpen;
+}
+
+export function doorOpeningsPerDay(state: EngineState): number | null {
+  if (!state.doorFlagsSeen || state.firstAtMs === null || state.lastAtMs === null) return null;
+  const days = (state.lastAtMs - state.firstAtMs) / (24 * HOUR_MS);
+  return days >= 1 ? state.doorOpenings / days : null;
+}

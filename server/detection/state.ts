@@ -1,0 +1,209 @@
+/**
+ * The engine's whole memory as plain JSON data, so live ingest can persist it after each
+ * batch and resume after a restart without re-reading the history. Rings are short plain
+ * arrays (a few dozen numbers); nothing here grows with the length of the history.
+ */
+import type { ApplianceStyle, Probe } from '../../shared/domain';
+import type { Finding } from './types';
+import { newCusum, type CusumState } from './stats/cusum';
+
+export const STATE_VERSION = 1;
+
+export type SensorFaultReason = 'disconnected' | 'power-on' | 'implausible' | 'jumps' | 'stuck' | 'dropout';
+
+export interface ProbeValidation {
+  lastValidC: number | null;
+  lastValidAtMs: number | null;
+  /** Start of the current run of identical values. */
+  sameValueC: number | null;
+  sameSinceMs: number | null;
+  /** Start of the current run of missing or invalid values. */
+  badSinceMs: number | null;
+  badReason: SensorFaultReason | null;
+  /** Start of the current run of good values (for closing a fault with hysteresis). */
+  goodSinceMs: number | null;
+  glitchTimesMs: number[];
+  pendingJumpC: number | null;
+  faultReason: SensorFaultReason | null;
+  faultFindingId: string | null;
+}
+
+export interface ProbeLevel {
+  bucketSumC: number;
+  bucketCount: number;
+  bucketMaxC: number | null;
+  bucketMeansC: number[];
+  /** Bucket max minus bucket mean: how spiky the probe is (door openings, infiltration). */
+  spikeC: number | null;
+  learnSpikesC: number[];
+  normalSpikeC: number | null;
+  levelC: number | null;
+  levelsC: number[];
+  levelTimesMs: number[];
+  learnLevelsC: number[];
+  baselineC: number | null;
+  spreadC: number | null;
+}
+
+export interface ProbeTrend {
+  cusum: CusumState;
+  cusumOnsetMs: number | null;
+  risingSinceMs: number | null;
+  recoveredSinceMs: number | null;
+  findingId: string | null;
+  /** Time the residual first passed the rise threshold in the current episode. */
+  firstRiseAtMs: number | null;
+  peakResidualC: number;
+}
+
+export interface ProbeOverTemp {
+  aboveSinceMs: number | null;
+  belowSinceMs: number | null;
+  findingId: string | null;
+}
+
+export interface ProbeRhythm {
+  smoothC: number | null;
+  /** +1 above the running mean by the hysteresis, −1 below, 0 unknown. */
+  side: number;
+  lastUpCrossingMs: number | null;
+  periodsMin: number[];
+  excursionStartMs: number | null;
+  excursionPeakC: number;
+  excursionReferenceC: number;
+  excursionDoor: boolean;
+}
+
+export interface ProbeState {
+  probe: Probe;
+  validation: ProbeValidation;
+  level: ProbeLevel;
+  trend: ProbeTrend;
+  overTemp: ProbeOverTemp;
+  rhythm: ProbeRhythm;
+}
+
+export interface DefrostEvent {
+  atMs: number;
+  riseC: number;
+  durationMin: number;
+}
+
+export interface EngineState {
+  version: number;
+  style: ApplianceStyle;
+  firstAtMs: number | null;
+  lastAtMs: number | null;
+  bucketIndex: number | null;
+  lastFreshAbove: boolean;
+  ready: boolean;
+  probes: ProbeState[];
+  defrosts: DefrostEvent[];
+  /** Median duration of the recorded defrost rises, kept up to date for the hot path. */
+  defrostDurationMin: number | null;
+  /** Running estimate of the reading interval (minutes). */
+  intervalMin: number | null;
+  doorOpen: boolean;
+  doorFlagsSeen: boolean;
+  doorOpenings: number;
+  doorOpeningsByHourUtc: number[];
+  noCoolingFindingId: string | null;
+  noCoolingRecoveredSinceMs: number | null;
+  /** Open findings only; a closed finding is reported once and forgotten. */
+  findings: Finding[];
+  lastUpdateAtMs: Record<string, number>;
+  /** Cumulative fresh-food minutes above the limit, and its value at each bucket end. */
+  freshMinutesAboveTotal: number;
+  aboveHistory: { atMs: number[]; minutes: number[] };
+  /** Cumulative minutes at each open finding's start, so its own count can be derived. */
+  aboveBaseByFinding: Record<string, number>;
+  closedFindings: number;
+}
+
+function newProbe(probe: Probe): ProbeState {
+  return {
+    probe,
+    validation: {
+      lastValidC: null,
+      lastValidAtMs: null,
+      sameValueC: null,
+      sameSinceMs: null,
+      badSinceMs: null,
+      badReason: null,
+      goodSinceMs: null,
+      glitchTimesMs: [],
+      pendingJumpC: null,
+      faultReason: null,
+      faultFindingId: null,
+    },
+    level: {
+      bucketSumC: 0,
+      bucketCount: 0,
+      bucketMaxC: null,
+      bucketMeansC: [],
+      spikeC: null,
+      learnSpikesC: [],
+      normalSpikeC: null,
+      levelC: null,
+      levelsC: [],
+      levelTimesMs: [],
+      learnLevelsC: [],
+      baselineC: null,
+      spreadC: null,
+    },
+    trend: {
+      cusum: newCusum(),
+      cusumOnsetMs: null,
+      risingSinceMs: null,
+      recoveredSinceMs: null,
+      findingId: null,
+      firstRiseAtMs: null,
+      peakResidualC: 0,
+    },
+    overTemp: { aboveSinceMs: null, belowSinceMs: null, findingId: null },
+    rhythm: {
+      smoothC: null,
+      side: 0,
+      lastUpCrossingMs: null,
+      periodsMin: [],
+      excursionStartMs: null,
+      excursionPeakC: 0,
+      excursionReferenceC: 0,
+      excursionDoor: false,
+    },
+  };
+}
+
+export function newEngineState(style: ApplianceStyle, probes: readonly Probe[]): EngineState {
+  return {
+    version: STATE_VERSION,
+    style,
+    firstAtMs: null,
+    lastAtMs: null,
+    bucketIndex: null,
+    lastFreshAbove: false,
+    ready: false,
+    probes: probes.map(newProbe),
+    defrosts: [],
+    defrostDurationMin: null,
+    intervalMin: null,
+    doorOpen: false,
+    doorFlagsSeen: false,
+    doorOpenings: 0,
+    doorOpeningsByHourUtc: new Array(24).fill(0),
+    noCoolingFindingId: null,
+    noCoolingRecoveredSinceMs: null,
+    findings: [],
+    lastUpdateAtMs: {},
+    freshMinutesAboveTotal: 0,
+    aboveHistory: { atMs: [], minutes: [] },
+    aboveBaseByFinding: {},
+    closedFindings: 0,
+  };
+}
+
+/** Pushes onto a short ring, dropping the oldest values beyond `capacity`. */
+export function pushRing(ring: number[], value: number, capacity: number): void {
+  ring.push(value);
+  while (ring.length > capacity) ring.shift();
+}

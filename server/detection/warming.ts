@@ -1,0 +1,214 @@
+/**
+ * warming-trend and no-cooling, judged once per bucket on the level series.
+ *
+ * warming-trend: the baseline-removed level, in units of the probe's learned spread, feeds
+ * an upper tabular CUSUM (Montgomery, Introduction to SQC, §9.1); its run length dates the
+ * onset. The CUSUM signal alone is not enough: the level must also sit at least
+ * max(minimum rise, 4σ) above the baseline for the sustain period, and its Theil–Sen slope
+ * must not show a recovery (a warm grocery load cools back down by itself).
+ *
+ * no-cooling: every compartment far above its normal and still climbing.
+ */
+import type { Probe } from '../../shared/domain';
+import { closeFinding, findOpen, openFinding } from './finding-book';
+import { isTrusted, limitOf, MINUTE_MS, minRiseOf, type EngineContext } from './context';
+import { forecastCrossingMs, residualC, robustSlopeCPerHour } from './level';
+import { currentCauses } from './signature';
+import type { ProbeState } from './state';
+import { cusumStep } from './stats/cusum';
+import { noCoolingSummary, warmingSummary } from './summaries';
+
+const CUSUM_CAP_FACTOR = 4;
+
+function riseThresholdC(ctx: EngineContext, p: ProbeState): number {
+  return Math.max(minRiseOf(p.probe, ctx.settings), 4 * (p.level.spreadC ?? 0));
+}
+
+function advanceCusum(ctx: EngineContext, p: ProbeState, residual: number, bucketEndMs: number): boolean {
+  const { settings } = ctx;
+  const t = p.trend;
+  const sigma = p.level.spreadC as number;
+  const signalled = cusumStep(t.cusum, residual / sigma, 0, settings.cusumReferenceSigma, settings.cusumDecisionSigma);
+  t.cusum.sum = Math.min(t.cusum.sum, CUSUM_CAP_FACTOR * settings.cusumDecisionSigma);
+  if (t.cusum.run === 1) t.cusumOnsetMs = bucketEndMs - (settings.levelWindowMinutes / 2) * MINUTE_MS;
+  if (t.cusum.run === 0) t.cusumOnsetMs = null;
+  return signalled;
+}
+
+export function judgeWarming(ctx: EngineContext, p: ProbeState, bucketEndMs: number, atMs: number): void {
+  const residual = residualC(p.level);
+  if (residual === null || p.level.spreadC === null) return;
+  const t = p.trend;
+  const signalled = advanceCusum(ctx, p, residual, bucketEndMs);
+  const threshold = riseThresholdC(ctx, p);
+  if (residual >= threshold) t.risingSinceMs ??= bucketEndMs;
+  else t.risingSinceMs = null;
+  t.peakResidualC = Math.max(t.peakResidualC, residual);
+  if (findOpen(ctx.state, t.findingId)) {
+    judgeWarmingRecovery(ctx, p, residual, bucketEndMs);
+    return;
+  }
+  t.findingId = null;
+  if (!signalled || t.risingSinceMs === null || !isTrusted(p)) return;
+  if (bucketEndMs - t.risingSinceMs < ctx.settings.sustainMinutes * MINUTE_MS) return;
+  const slope = robustSlopeCPerHour(p.level, ctx.settings.slopeWindowMinutes);
+  if (slope !== null && slope <= ctx.settings.recoveringSlopeCPerHour) return;
+  openWarming(ctx, p, slope, atMs);
+}
+
+function openWarming(ctx: EngineContext, p: ProbeState, slope: number | null, atMs: number): void {
+  const level = p.level;
+  const crossing = forecastCrossingMs(level, limitOf(p.probe, ctx.settings), ctx.settings);
+  const startedAtMs = p.trend.cusumOnsetMs ?? p.trend.risingSinceMs ?? atMs;
+  const finding = openFinding(
+    ctx.state,
+    {
+      kind: 'warming-trend',
+      compartment: p.probe,
+      startedAtMs: Math.min(startedAtMs, atMs),
+      detectedAtMs: atMs,
+      severity: warmingSeverity(ctx, p, crossing, atMs),
+      probableCauses: currentCauses(ctx),
+      summary: warmingSummary(p.probe, level.levelC as number, level.baselineC as number, slope, crossing),
+      forecastCrossingAtMs: crossing,
+    },
+    ctx.events,
+  );
+  p.trend.findingId = finding.id;
+  p.trend.recoveredSinceMs = null;
+}
+
+const URGENT_WITHIN_HOURS = 6;
+
+export function warmingSeverity(ctx: EngineContext, p: ProbeState, crossingMs: number | null, atMs: number) {
+  const levelC = p.level.levelC as number;
+  if (levelC > limitOf(p.probe, ctx.settings)) return 'urgent' as const;
+  if (crossingMs !== null && crossingMs - atMs < URGENT_WITHIN_HOURS * 60 * MINUTE_MS) return 'urgent' as const;
+  return 'watch' as const;
+}
+
+function isRecovered(ctx: EngineContext, p: ProbeState, residual: number): boolean {
+  const levelC = p.level.levelC as number;
+  return residual <= ctx.settings.recoveredBandC && levelC <= limitOf(p.probe, ctx.settings);
+}
+
+function judgeWarmingRecovery(ctx: EngineContext, p: ProbeState, residual: number, bucketEndMs: number): void {
+  const t = p.trend;
+  if (!isRecovered(ctx, p, residual)) {
+    t.recoveredSinceMs = null;
+    return;
+  }
+  t.recoveredSinceMs ??= bucketEndMs;
+  if (bucketEndMs - t.recoveredSinceMs < ctx.settings.recoveredHoldMinutes * MINUTE_MS) return;
+  closeFinding(ctx.state, t.findingId, t.recoveredSinceMs, ctx.events);
+  t.findingId = null;
+  t.cusum.sum = 0;
+  t.cusum.run = 0;
+  t.peakResidualC = 0;
+}
+
+/** The running figures of an open warming-trend finding. */
+export function warmingPatch(ctx: EngineContext, p: ProbeState, atMs: number) {
+  const finding = findOpen(ctx.state, p.trend.findingId);
+  if (!finding || p.level.levelC === null || p.level.baselineC === null) return null;
+  const crossing = forecastCrossingMs(p.level, limitOf(p.probe, ctx.settings), ctx.settings);
+  const slope = robustSlopeCPerHour(p.level, ctx.settings.slopeWindowMinutes);
+  return {
+    finding,
+    patch: {
+      severity: warmingSeverity(ctx, p, crossing, atMs),
+      forecastCrossingAtMs: crossing,
+      summary: warmingSummary(p.probe, p.level.levelC, p.level.baselineC, slope, crossing),
+    },
+  };
+}
+
+function noCoolingRiseC(ctx: EngineContext, probe: Probe): number {
+  return probe === 'fresh_food' ? ctx.settings.noCoolingFreshRiseC : ctx.settings.noCoolingFreezerRiseC;
+}
+
+/** Heading for room temperature: far above normal and still climbing. */
+function isHeadingToRoom(ctx: EngineContext, p: ProbeState): boolean {
+  const residual = residualC(p.level);
+  if (residual === null || !isTrusted(p)) return false;
+  if (residual < noCoolingRiseC(ctx, p.probe)) return false;
+  const slope = robustSlopeCPerHour(p.level, ctx.settings.noCoolingSlopeWindowMinutes) ?? 0;
+  return slope >= ctx.settings.noCoolingSlopeCPerHour;
+}
+
+function judgedProbes(ctx: EngineContext): ProbeState[] {
+  return ctx.state.probes.filter((p) => p.level.baselineC !== null);
+}
+
+/** In a two-probe unit the fresh food follows the freezer later; it must have left its normal too. */
+function isNoCooling(ctx: EngineContext): boolean {
+  const probes = judgedProbes(ctx);
+  if (probes.length === 0) return false;
+  const freezer = probes.find((p) => p.probe === 'freezer');
+  const fresh = probes.find((p) => p.probe === 'fresh_food');
+  if (freezer && fresh) {
+    const freshResidual = residualC(fresh.level) ?? 0;
+    if (freshResidual < ctx.settings.freshMinRiseC || !isTrusted(fresh) || !isHeadingToRoom(ctx, freezer)) return false;
+    return (robustSlopeCPerHour(fresh.level, ctx.settings.noCoolingSlopeWindowMinutes) ?? 0) > 0;
+  }
+  return probes.every((p) => isHeadingToRoom(ctx, p));
+}
+
+function earliestOnset(ctx: EngineContext, atMs: number): number {
+  const onsets = ctx.state.probes.map((p) => p.trend.cusumOnsetMs).filter((t): t is number => t !== null);
+  return onsets.length ? Math.min(atMs, ...onsets) : atMs;
+}
+
+function levelOf(ctx: EngineContext, probe: Probe): number | null {
+  return ctx.state.probes.find((p) => p.probe === probe)?.level.levelC ?? null;
+}
+
+export function judgeNoCooling(ctx: EngineContext, bucketEndMs: number, atMs: number): void {
+  const state = ctx.state;
+  const open = findOpen(state, state.noCoolingFindingId);
+  if (open) {
+    judgeNoCoolingRecovery(ctx, bucketEndMs);
+    return;
+  }
+  state.noCoolingFindingId = null;
+  if (!state.ready || !isNoCooling(ctx)) return;
+  state.noCoolingFindingId = 'pending'; // lets the diagnosis see the no-cooling verdict
+  const finding = openFinding(
+    state,
+    {
+      kind: 'no-cooling',
+      compartment: judgedProbes(ctx).length > 1 ? 'both' : judgedProbes(ctx)[0].probe,
+      startedAtMs: earliestOnset(ctx, atMs),
+      detectedAtMs: atMs,
+      severity: 'critical',
+      probableCauses: currentCauses(ctx),
+      summary: noCoolingSummary(levelOf(ctx, 'fresh_food'), levelOf(ctx, 'freezer')),
+    },
+    ctx.events,
+  );
+  state.noCoolingFindingId = finding.id;
+  state.noCoolingRecoveredSinceMs = null;
+}
+
+function judgeNoCoolingRecovery(ctx: EngineContext, bucketEndMs: number): void {
+  const state = ctx.state;
+  const recovered = judgedProbes(ctx).every((p) => {
+    const residual = residualC(p.level);
+    return residual !== null && isRecovered(ctx, p, residual);
+  });
+  if (!recovered) {
+    state.noCoolingRecoveredSinceMs = null;
+    return;
+  }
+  state.noCoolingRecoveredSinceMs ??= bucketEndMs;
+  if (bucketEndMs - state.noCoolingRecoveredSinceMs < ctx.settings.recoveredHoldMinutes * MINUTE_MS) return;
+  closeFinding(state, state.noCoolingFindingId, state.noCoolingRecoveredSinceMs, ctx.events);
+  state.noCoolingFindingId = null;
+}
+
+export function noCoolingPatch(ctx: EngineContext) {
+  const finding = findOpen(ctx.state, ctx.state.noCoolingFindingId);
+  if (!finding) return null;
+  return { finding, patch: { summary: noCoolingSummary(levelOf(ctx, 'fresh_food'), levelOf(ctx, 'freezer')) } };
+}
+

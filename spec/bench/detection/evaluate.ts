@@ -1,0 +1,148 @@
+/**
+ * Runs one scenario through the simulator, the detection engine and the plain thermometer
+ * alarm, and records what each concluded and when.
+ */
+import { DetectionEngine } from '../../../server/detection/engine';
+import { isRepairFinding, type Finding } from '../../../server/detection/types';
+import type { CauseCode, Probe } from '../../../shared/domain';
+import { probesOf } from '../../../shared/domain';
+import { FRESH_FOOD_LIMIT_C } from '../../../shared/temperature';
+import { generateTrace, type SimSample } from '../../../simulator/model';
+import { thermometerAlarms } from './thermometer';
+import { HOUR_MS, type Scenario } from './scenarios';
+
+export interface Detection {
+  detectedAtMs: number;
+  topCauseAtOpen: CauseCode | null;
+  topCauseFinal: CauseCode | null;
+}
+
+export interface DetectorOutcome {
+  /** First repair finding (or alarm) at or after the onset. */
+  first: Detection | null;
+  /** Repair findings (or alarms) opened before the onset, or at all on a healthy trace. */
+  falseRepair: number;
+  sensorFaultFound: boolean;
+}
+
+export interface ScenarioOutcome {
+  scenario: Scenario;
+  /** Ground truth: the fault moved a compartment at least 2 °C off its own normal. */
+  visible: boolean;
+  foodAtRiskAtMs: number | null;
+  engine: DetectorOutcome;
+  thermometer: DetectorOutcome;
+  /** Every finding of the engine in its final state (for the property correlator). */
+  findings: Finding[];
+  readings: number;
+}
+
+const VISIBLE_RISE_C = 2;
+const FOOD_AT_RISK_MINUTES = 120;
+
+function valueOf(sample: SimSample, probe: Probe): number | null {
+  const value = probe === 'fresh_food' ? sample.freshFoodC : sample.freezerC;
+  return value === null || value <= -100 || value >= 80 ? null : value;
+}
+
+function medianOf(values: number[]): number | null {
+  if (!values.length) return null;
+  const sorted = [...values].sort((a, b) => a - b);
+  return sorted[sorted.length >> 1];
+}
+
+function hourlyMedians(trace: SimSample[], probe: Probe, fromMs: number): number[] {
+  const byHour = new Map<number, number[]>();
+  for (const s of trace) {
+    const v = valueOf(s, probe);
+    if (s.atMs < fromMs || v === null) continue;
+    const hour = Math.floor((s.atMs - fromMs) / HOUR_MS);
+    if (!byHour.has(hour)) byHour.set(hour, []);
+    byHour.get(hour)!.push(v);
+  }
+  return [...byHour.values()].map((vs) => medianOf(vs) as number);
+}
+
+function isVisible(scenario: Scenario, trace: SimSample[]): boolean {
+  if (scenario.onsetMs === null) return false;
+  const onset = scenario.onsetMs;
+  return probesOf(scenario.style).some((probe) => {
+    const before = medianOf(trace.filter((s) => s.atMs < onset && s.atMs >= onset - 24 * HOUR_MS).map((s) => valueOf(s, probe)).filter((v): v is number => v !== null));
+    if (before === null) return false;
+    return hourlyMedians(trace, probe, onset).some((m) => m >= before + VISIBLE_RISE_C);
+  });
+}
+
+/** When the air of the compartment holding perishables has been above 40 °F for 2 hours since onset. */
+export function foodAtRiskAt(scenario: Scenario, trace: SimSample[]): number | null {
+  if (scenario.onsetMs === null) return null;
+  const probe: Probe = probesOf(scenario.style).includes('fresh_food') ? 'fresh_food' : 'freezer';
+  let minutes = 0;
+  let previous: SimSample | null = null;
+  for (const s of trace) {
+    if (s.atMs < scenario.onsetMs) continue;
+    const v = valueOf(s, probe);
+    if (previous && v !== null && v > FRESH_FOOD_LIMIT_C) minutes += (s.atMs - previous.atMs) / 60_000;
+    if (minutes >= FOOD_AT_RISK_MINUTES) return s.atMs;
+    previous = s;
+  }
+  return null;
+}
+
+function runEngine(scenario: Scenario, trace: SimSample[]): { outcome: DetectorOutcome; findings: Finding[] } {
+  const engine = new DetectionEngine(scenario.style);
+  const opened = new Map<string, { finding: Finding; topAtOpen: CauseCode | null }>();
+  const final = new Map<string, Finding>();
+  for (const s of trace) {
+    for (const event of engine.push({ atMs: s.atMs, freshFoodC: s.freshFoodC, freezerC: s.freezerC })) {
+      final.set(event.finding.id, event.finding);
+      if (event.type === 'opened') opened.set(event.finding.id, { finding: event.finding, topAtOpen: event.finding.probableCauses[0]?.code ?? null });
+    }
+  }
+  for (const f of engine.openFindings()) final.set(f.id, f);
+  const onset = scenario.onsetMs ?? Infinity;
+  const repairs = [...opened.values()].filter((o) => isRepairFinding(o.finding));
+  const after = repairs.filter((o) => o.finding.detectedAtMs >= onset).sort((a, b) => a.finding.detectedAtMs - b.finding.detectedAtMs);
+  const first = after[0];
+  return {
+    outcome: {
+      first: first ? { detectedAtMs: first.finding.detectedAtMs, topCauseAtOpen: first.topAtOpen, topCauseFinal: final.get(first.finding.id)?.probableCauses[0]?.code ?? null } : null,
+      falseRepair: repairs.filter((o) => o.finding.detectedAtMs < onset).length,
+      sensorFaultFound: [...opened.values()].some((o) => o.finding.kind === 'sensor-fault' && o.finding.detectedAtMs >= onset),
+    },
+    findings: [...final.values()],
+  };
+}
+
+function runThermometer(scenario: Scenario, trace: SimSample[]): DetectorOutcome {
+  const alarms = thermometerAlarms(trace, probesOf(scenario.style));
+  const onset = scenario.onsetMs ?? Infinity;
+  const first = alarms.find((t) => t >= onset);
+  return {
+    first: first !== undefined ? { detectedAtMs: first, topCauseAtOpen: null, topCauseFinal: null } : null,
+    falseRepair: alarms.filter((t) => t < onset).length,
+    sensorFaultFound: false,
+  };
+}
+
+export function evaluateScenario(scenario: Scenario): ScenarioOutcome {
+  const trace = generateTrace({
+    profile: scenario.profile,
+    seed: scenario.seed,
+    startMs: scenario.startMs,
+    durationMs: scenario.durationMs,
+    intervalMs: scenario.intervalMs,
+    faults: scenario.faults,
+    extraEvents: scenario.extraEvents,
+  });
+  const { outcome, findings } = runEngine(scenario, trace);
+  return {
+    scenario,
+    visible: isVisible(scenario, trace),
+    foodAtRiskAtMs: foodAtRiskAt(scenario, trace),
+    engine: outcome,
+    thermometer: runThermometer(scenario, trace),
+    findings,
+    readings: trace.length,
+  };
+}
