@@ -40,8 +40,12 @@ export interface SensorRejectsView {
   latest: TelemetryRejectView[];
 }
 
-/** Which data a history answer is made of. */
-export type HistoryResolution = 'raw' | '5m' | '1h' | 'lttb';
+/**
+ * How a history answer was made: raw readings, rollup buckets (with a min/max envelope),
+ * or points picked by LTTB (Steinarsson 2013) from the source named in `source`.
+ */
+export type HistoryResolution = 'raw' | 'rollup' | 'lttb';
+export type HistorySource = 'reading' | 'rollup_5m' | 'rollup_1h';
 
 /** [epoch ms, value °C]. */
 export type HistoryPoint = [number, number];
@@ -60,7 +64,8 @@ export interface ApplianceHistory {
   from: string;
   to: string;
   resolution: HistoryResolution;
-  /** Width of one point for rollups, in ms; null for raw readings and LTTB. */
+  source: HistorySource;
+  /** Width of one point for rollups (5 min, 1 h or several hours merged), in ms; null otherwise. */
   bucketMs: number | null;
   probes: Partial<Record<Probe, ProbeHistory>>;
   sensor: { lastSeenAt: string | null; intervalSeconds: number; silent: boolean } | null;
