@@ -8,22 +8,44 @@
  * - contents: the food (tens to hundreds of kJ/K), reached only through the air.
  * A thermostat sensor in a plastic housing follows the air with a lag of several minutes
  * (common practice of control boards), which sets the length of the compressor cycles.
- * Food freezes and thaws between −2.5 and −0.5 °C: the latent heat of its water (70 % water,
- * 334 kJ/kg, with 2 kJ/(kg·K) for frozen food: common practice, from memory) is spread over
- * that range as extra heat capacity, which is what lets a full freezer hold for about two days
- * without power (USDA FSIS, "Keeping Food Safe During an Emergency": about 48 h).
+ * Food freezes and thaws between −2.5 and −0.5 °C: the latent heat of its water (334 kJ/kg;
+ * 2 kJ/(kg·K) for frozen food and half the contents' heat capacity in water-bearing food, with
+ * packaging and shelves the rest: common practice, from memory) is spread over that range as
+ * extra heat capacity. That is what lets a full freezer hold for about two days without power
+ * (USDA FSIS, "Keeping Food Safe During an Emergency": about 48 h full, 24 h half full).
  */
 
 export const WALL_SHARE_TO_AIR = 0.1;
 const FREEZING_FROM_C = -2.5;
 const FREEZING_TO_C = -0.5;
-/** Latent heat per J/K of contents: (1 / 2000 J/(kg·K)) kg × 0.7 water × 334 kJ/kg. */
-const LATENT_J_PER_CONTENTS_J_PER_K = (0.7 * 334_000) / 2000;
+/** Latent heat per J/K of contents: (1 / 2000 J/(kg·K)) kg × 0.5 water × 334 kJ/kg. */
+const LATENT_J_PER_CONTENTS_J_PER_K = (0.5 * 334_000) / 2000;
 const LATENT_EXTRA_FACTOR = LATENT_J_PER_CONTENTS_J_PER_K / (FREEZING_TO_C - FREEZING_FROM_C);
 
 export function relax(tempC: number, capacityJPerK: number, sumG: number, sumGTQ: number, dtS: number): number {
-  const equilibriumC = sumGTQ / sumG;
-  return equilibriumC + (tempC - equilibriumC) * Math.exp((-dtS * sumG) / capacityJPerK);
+  return relaxWith(tempC, sumGTQ / sumG, Math.exp((-dtS * sumG) / capacityJPerK));
+}
+
+function relaxWith(tempC: number, equilibriumC: number, keep: number): number {
+  return equilibriumC + (tempC - equilibriumC) * keep;
+}
+
+/** exp(−dt·G/C) remembered for the last (dt, G, C): shell and contents rarely change them. */
+class DecayCache {
+  private dtS = NaN;
+  private sumG = NaN;
+  private capacityJPerK = NaN;
+  private keep = 1;
+
+  factor(dtS: number, sumG: number, capacityJPerK: number): number {
+    if (dtS !== this.dtS || sumG !== this.sumG || capacityJPerK !== this.capacityJPerK) {
+      this.dtS = dtS;
+      this.sumG = sumG;
+      this.capacityJPerK = capacityJPerK;
+      this.keep = Math.exp((-dtS * sumG) / capacityJPerK);
+    }
+    return this.keep;
+  }
 }
 
 export interface CompartmentParams {
@@ -60,6 +82,9 @@ export class Compartment {
   contentsC: number;
   sensedC: number;
   extraContentsJPerK = 0;
+  private readonly shellDecay = new DecayCache();
+  private readonly contentsDecay = new DecayCache();
+  private readonly lagDecay = new DecayCache();
 
   constructor(
     readonly params: CompartmentParams,
@@ -78,11 +103,19 @@ export class Compartment {
     const wallG = (1 - WALL_SHARE_TO_AIR) * p.uaWPerK;
     const sumShellG = wallG + p.airToShellWPerK + partitionG;
     const sumShellGT = wallG * roomC + p.airToShellWPerK * this.airC + partitionG * partitionC;
-    this.shellC = relax(this.shellC, p.shellJPerK, sumShellG, sumShellGT, dtS);
+    this.shellC = relaxWith(this.shellC, sumShellGT / sumShellG, this.shellDecay.factor(dtS, sumShellG, p.shellJPerK));
     let contentsJPerK = p.contentsJPerK + this.extraContentsJPerK;
     if (this.contentsC > FREEZING_FROM_C && this.contentsC < FREEZING_TO_C) contentsJPerK *= 1 + LATENT_EXTRA_FACTOR;
-    this.contentsC = relax(this.contentsC, contentsJPerK, p.airToContentsWPerK, p.airToContentsWPerK * this.airC, dtS);
-    this.sensedC += (this.airC - this.sensedC) * (1 - Math.exp(-dtS / p.thermostatLagS));
+    const contentsKeep = this.contentsDecay.factor(dtS, p.airToContentsWPerK, contentsJPerK);
+    this.contentsC = relaxWith(this.contentsC, this.airC, contentsKeep);
+    this.sensedC = relaxWith(this.sensedC, this.airC, this.lagDecay.factor(dtS, 1, p.thermostatLagS));
+  }
+
+  /** Groceries taken out at the contents' temperature: capacity shrinks, temperature stays. */
+  eatGroceries(share: number): void {
+    if (this.extraContentsJPerK === 0) return;
+    this.extraContentsJPerK *= 1 - share;
+    if (this.extraContentsJPerK < 1) this.extraContentsJPerK = 0;
   }
 
   /** Warm groceries mixed into the contents (energy-conserving); they are eaten over days. */

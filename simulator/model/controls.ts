@@ -6,9 +6,9 @@
  *   let the pressures equalise before a restart) and a minimum on time;
  * - the evaporator fan runs whenever the relay is closed (also if the compressor fails to start);
  * - the damper opens while the fresh-food section demands (and stays put without power);
- * - automatic defrost every `defrostIntervalH` hours of powered time: compressor and fan stop,
- *   the heater runs until the coil reaches +10 °C (termination thermostat) or 4 min before the
- *   end, then the drip time lets the water run off.
+ * - automatic defrost every `defrostIntervalH` hours of powered time, start to start:
+ *   compressor and fan stop, the heater runs until the coil reaches +10 °C (termination
+ *   thermostat) or 4 min before the end, then the drip time lets the water run off.
  * Without power nothing runs and the defrost clock stands still.
  */
 import type { ApplianceProfile } from './types';
@@ -59,12 +59,12 @@ export class Controls {
   private advanceDefrost(dtS: number, coilC: number): void {
     const intervalH = this.p.defrostIntervalH;
     if (intervalH === null) return;
+    this.sinceDefrostS += dtS;
     if (this.defrosting) {
       this.defrostRemainingS -= dtS;
       if (coilC >= DEFROST_TERMINATION_C || this.defrostRemainingS <= DRIP_S) this.heaterDone = true;
       return;
     }
-    this.sinceDefrostS += dtS;
     if (this.sinceDefrostS < intervalH * 3600) return;
     this.sinceDefrostS = 0;
     this.defrostRemainingS = this.p.defrostDurationMin * 60;

@@ -46,6 +46,9 @@ export class RoomClimate {
   private readonly weatherPhases: number[];
   private readonly weatherAmplitudes: number[];
   private readonly hotDays: HotDay[] = [];
+  /** Room air changes slowly: one value per minute saves the trigonometry of most steps. */
+  private cachedMinute = NaN;
+  private cachedC = 0;
 
   constructor(
     private readonly profile: ApplianceProfile,
@@ -58,9 +61,19 @@ export class RoomClimate {
 
   addHotDay(atMs: number, amplitudeK: number): void {
     this.hotDays.push({ atMs, amplitudeK });
+    this.cachedMinute = NaN;
   }
 
   tempC(atMs: number): number {
+    const minute = Math.floor(atMs / 60_000);
+    if (minute !== this.cachedMinute) {
+      this.cachedMinute = minute;
+      this.cachedC = this.computeC(minute * 60_000);
+    }
+    return this.cachedC;
+  }
+
+  private computeC(atMs: number): number {
     const p = this.profile;
     const hour = localHour(atMs, p.utcOffsetHours);
     let tempC = p.roomMeanC + p.roomDailySwingK * Math.cos((2 * Math.PI * (hour - p.roomPeakHourLocal)) / 24);

@@ -153,7 +153,7 @@ export class Cabinet {
     const ductOpening = CLOSED_DUCT_NATURAL_SHARE + (1 - CLOSED_DUCT_NATURAL_SHARE) * damperOpening(s);
     const ductG = both && throughG === 0 ? p.ductNaturalWPerK * freshBlock * ductOpening : 0;
     const supplyC = this.stepCoil(dtS, s, throughG, effectiveness, mixC, coilAir.airC, ductG / 2);
-    const doorFactor = 1 + s.sealLeak;
+    const doorFactor = 1 + 3 * s.sealLeak;
     if (this.hasFresh) {
       const a = this.freshPaths;
       a.roomG = (p.freshFoodDoorExchangeWPerK * doorFactor * s.freshDoorOpenS) / dtS + s.sealLeak * p.freshFoodUaWPerK;
@@ -176,9 +176,8 @@ export class Cabinet {
       this.freezer.step(dtS, s.roomC, a, both ? p.partitionUaWPerK : 0, this.fresh.shellC);
     }
     this.growFrost(dtS, s);
-    const eatenFactor = 1 - dtS / GROCERY_EATEN_TAU_S;
-    this.fresh.extraContentsJPerK *= eatenFactor;
-    this.freezer.extraContentsJPerK *= eatenFactor;
+    this.fresh.eatGroceries(dtS / GROCERY_EATEN_TAU_S);
+    this.freezer.eatGroceries(dtS / GROCERY_EATEN_TAU_S);
   }
 
   /** Updates the coil and its frost; returns the temperature of the air leaving the coil. */

@@ -27,7 +27,7 @@ const TOP_FREEZER: ApplianceProfile = {
   compressorMinOffS: 300,
   compressorMinOnS: 180,
   freshFoodContentsJPerK: 120_000,
-  freezerContentsJPerK: 110_000,
+  freezerContentsJPerK: 50_000,
   freshFoodAirJPerK: 2_000,
   freezerAirJPerK: 1_200,
   freshFoodShellJPerK: 25_000,
@@ -90,7 +90,7 @@ const STYLE_CHANGES: Record<ApplianceStyle, Partial<ApplianceProfile>> = {
     freezerDoorShare: 0,
   },
   'upright-freezer': {
-    freezerContentsJPerK: 180_000,
+    freezerContentsJPerK: 80_000,
     freezerAirJPerK: 5_000,
     freezerUaWPerK: 1.1,
     compressorCapacityW: 120,
@@ -102,7 +102,7 @@ const STYLE_CHANGES: Record<ApplianceStyle, Partial<ApplianceProfile>> = {
   },
   // Cold-wall evaporator, no fan, manual defrost; cold air stays in an open chest.
   'chest-freezer': {
-    freezerContentsJPerK: 200_000,
+    freezerContentsJPerK: 90_000,
     freezerAirJPerK: 4_000,
     freezerUaWPerK: 0.9,
     compressorCapacityW: 90,

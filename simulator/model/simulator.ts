@@ -8,6 +8,7 @@
  * last partial step up to the requested time.
  */
 import { probesOf } from '../../shared/domain';
+import type { Probe } from '../../shared/domain';
 import type { ApplianceProfile, ExtraEvent, FaultCode, ScheduledFault, SimSample, SimulatorOptions } from './types';
 import { Cabinet, newStepInputs, StepInputs } from './physics';
 import { Controls } from './controls';
@@ -15,7 +16,7 @@ import { RoomClimate } from './environment';
 import { DoorHabits } from './doors';
 import { FaultEffects, isActive, noFaultEffects, resolveFaults } from './faults';
 import { ProbeChannel } from './probe';
-import { createRng, deriveSeed, gaussian, Rng, uniform } from './rng';
+import { createRng, deriveSeed, Rng, uniform } from './rng';
 
 const DEFAULT_STEP_MS = 20_000;
 const YEAR_MS = 365.25 * 86_400_000;
@@ -36,6 +37,8 @@ export interface SimTruth {
   roomC: number;
   defrosting: boolean;
   fanRunning: boolean;
+  freshDoorOpen: boolean;
+  freezerDoorOpen: boolean;
 }
 
 interface PendingLoad {
@@ -104,6 +107,12 @@ export class ApplianceSimulator {
     }
     this.loads.push({ atMs: event.atMs, kg: event.magnitude ?? uniform(this.cabinetRng, 4, 10) });
     this.loads.sort((a, b) => a.atMs - b.atMs);
+  }
+
+  /** Opens a door now for durationS (a demo or a test; habits open doors by themselves). */
+  openDoor(probe: Probe, durationS: number): void {
+    const door = probe === 'freezer' ? this.doors.freezer : this.doors.freshFood;
+    this.doors.openFor(door, this.currentMs, durationS, this.currentMs);
   }
 
   advanceTo(atMs: number): void {
@@ -176,13 +185,14 @@ export class ApplianceSimulator {
       freezerC,
       doorOpen: this.doors.freshFood.isOpen(this.currentMs) || this.doors.freezer.isOpen(this.currentMs),
       batteryV: this.batteryV(rng),
-      compressorOn: this.controls.compressorRunning,
+      // The relay state of the last step, unless a fault stopped the compressor since.
+      compressorOn: this.controls.compressorRunning && this.effects.powered && this.effects.compressorCanRun,
     };
   }
 
   private batteryV(rng: Rng): number {
     const years = (this.currentMs - this.startMs) / YEAR_MS;
-    const volts = this.profile.batteryStartV - this.profile.batteryDrainVPerYear * years + 0.005 * gaussian(rng);
+    const volts = this.profile.batteryStartV - this.profile.batteryDrainVPerYear * years + 0.01 * (rng() - 0.5);
     return Math.round(Math.max(0, volts) * 100) / 100;
   }
 
@@ -199,6 +209,8 @@ export class ApplianceSimulator {
       roomC: this.climate.tempC(this.currentMs),
       defrosting: this.controls.defrosting,
       fanRunning: this.controls.fanRunning,
+      freshDoorOpen: this.doors.freshFood.isOpen(this.currentMs),
+      freezerDoorOpen: this.doors.freezer.isOpen(this.currentMs),
     };
   }
 }
