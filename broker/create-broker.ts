@@ -41,6 +41,11 @@ export async function startBroker(config: BrokerConfig, logger: Logger): Promise
   aedes.on('connectionError', (client, error) => logger.debug({ client: client?.id, err: error.message }, 'broker: connection error'));
 
   const server = net.createServer(aedes.handle);
+  const sockets = new Set<net.Socket>();
+  server.on('connection', (socket) => {
+    sockets.add(socket);
+    socket.once('close', () => sockets.delete(socket));
+  });
   await new Promise<void>((resolve, reject) => {
     server.once('error', reject);
     server.listen(config.port, config.host, () => resolve());
@@ -52,8 +57,12 @@ export async function startBroker(config: BrokerConfig, logger: Logger): Promise
     aedes,
     port,
     async close() {
-      await new Promise<void>((resolve) => server.close(() => resolve()));
+      // aedes.close ends the client connections, which lets server.close finish.
+      const serverClosed = new Promise<void>((resolve) => server.close(() => resolve()));
       await new Promise<void>((resolve) => aedes.close(() => resolve()));
+      // A connection still in its CONNECT handshake is not an aedes client yet.
+      sockets.forEach((socket) => socket.destroy());
+      await serverClosed;
       await rejects.close();
       await pool.end();
     },

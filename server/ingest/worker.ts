@@ -32,6 +32,7 @@ export class IngestWorker {
   private readonly pipeline: IngestPipeline;
   private readonly subscriber: AckingSubscriber;
   private maintenanceTimer: NodeJS.Timeout | null = null;
+  private stopped: Promise<void> | null = null;
 
   constructor(private readonly options: IngestWorkerOptions) {
     const { config, logger } = options;
@@ -74,11 +75,15 @@ export class IngestWorker {
     this.options.logger.info({ shards: this.options.config.shards.length, clientId: this.options.config.clientId }, 'ingest: subscribed');
   }
 
-  async stop(): Promise<void> {
-    if (this.maintenanceTimer) clearInterval(this.maintenanceTimer);
-    await this.subscriber.stop();
-    await this.pipeline.stop();
-    await this.pool.end();
+  /** Idempotent: the first call stops, later calls wait for it. */
+  stop(): Promise<void> {
+    this.stopped ??= (async () => {
+      if (this.maintenanceTimer) clearInterval(this.maintenanceTimer);
+      await this.subscriber.stop();
+      await this.pipeline.stop();
+      await this.pool.end();
+    })();
+    return this.stopped;
   }
 
   stats(): PipelineStats & { connected: boolean } {
