@@ -9,7 +9,7 @@
  * A thermostat sensor in a plastic housing follows the air with a lag of several minutes
  * (common practice of control boards), which sets the length of the compressor cycles.
  * Food freezes and thaws between −2.5 and −0.5 °C: the latent heat of its water (334 kJ/kg;
- * 2 kJ/(kg·K) for frozen food and half the contents' heat capacity in water-bearing food, with
+ * 2 kJ/(kg·K) for frozen food, 40 % of the contents by mass being water that freezes, with
  * packaging and shelves the rest: common practice, from memory) is spread over that range as
  * extra heat capacity. That is what lets a full freezer hold for about two days without power
  * (USDA FSIS, "Keeping Food Safe During an Emergency": about 48 h full, 24 h half full).
@@ -18,8 +18,10 @@
 export const WALL_SHARE_TO_AIR = 0.1;
 const FREEZING_FROM_C = -2.5;
 const FREEZING_TO_C = -0.5;
-/** Latent heat per J/K of contents: (1 / 2000 J/(kg·K)) kg × 0.5 water × 334 kJ/kg. */
-const LATENT_J_PER_CONTENTS_J_PER_K = (0.5 * 334_000) / 2000;
+/** Latent heat per J/K of contents: (1 / 2000 J/(kg·K)) kg × 0.4 water × 334 kJ/kg. */
+const LATENT_J_PER_CONTENTS_J_PER_K = (0.4 * 334_000) / 2000;
+const LOAD_W_PER_K_PER_KG = 0.8;
+const LOAD_MERGE_K = 0.3;
 const LATENT_EXTRA_FACTOR = LATENT_J_PER_CONTENTS_J_PER_K / (FREEZING_TO_C - FREEZING_FROM_C);
 
 export function relax(tempC: number, capacityJPerK: number, sumG: number, sumGTQ: number, dtS: number): number {
@@ -82,6 +84,10 @@ export class Compartment {
   contentsC: number;
   sensedC: number;
   extraContentsJPerK = 0;
+  /** A fresh grocery load: its own node until it has cooled to the contents, then merged in. */
+  loadC = 0;
+  loadJPerK = 0;
+  loadWPerK = 0;
   private readonly shellDecay = new DecayCache();
   private readonly contentsDecay = new DecayCache();
   private readonly lagDecay = new DecayCache();
@@ -96,9 +102,9 @@ export class Compartment {
   step(dtS: number, roomC: number, air: AirPaths, partitionG: number, partitionC: number): void {
     const p = this.params;
     const roomAirG = WALL_SHARE_TO_AIR * p.uaWPerK + air.roomG;
-    const sumAirG = roomAirG + p.airToShellWPerK + p.airToContentsWPerK + air.supplyG + air.otherG;
+    const sumAirG = roomAirG + p.airToShellWPerK + p.airToContentsWPerK + air.supplyG + air.otherG + this.loadWPerK;
     const sumAirGT = roomAirG * roomC + p.airToShellWPerK * this.shellC + p.airToContentsWPerK * this.contentsC
-      + air.supplyG * air.supplyC + air.otherG * air.otherC + air.heatW;
+      + air.supplyG * air.supplyC + air.otherG * air.otherC + air.heatW + this.loadWPerK * this.loadC;
     this.airC = relax(this.airC, p.airJPerK, sumAirG, sumAirGT, dtS);
     const wallG = (1 - WALL_SHARE_TO_AIR) * p.uaWPerK;
     const sumShellG = wallG + p.airToShellWPerK + partitionG;
@@ -106,9 +112,24 @@ export class Compartment {
     this.shellC = relaxWith(this.shellC, sumShellGT / sumShellG, this.shellDecay.factor(dtS, sumShellG, p.shellJPerK));
     let contentsJPerK = p.contentsJPerK + this.extraContentsJPerK;
     if (this.contentsC > FREEZING_FROM_C && this.contentsC < FREEZING_TO_C) contentsJPerK *= 1 + LATENT_EXTRA_FACTOR;
+    if (this.loadJPerK > 0) this.stepLoad(dtS);
     const contentsKeep = this.contentsDecay.factor(dtS, p.airToContentsWPerK, contentsJPerK);
     this.contentsC = relaxWith(this.contentsC, this.airC, contentsKeep);
     this.sensedC = relaxWith(this.sensedC, this.airC, this.lagDecay.factor(dtS, 1, p.thermostatLagS));
+  }
+
+  /** Temperature of all the food, a fresh grocery load included (capacity-weighted). */
+  get foodC(): number {
+    if (this.loadJPerK === 0) return this.contentsC;
+    const contentsJPerK = this.params.contentsJPerK + this.extraContentsJPerK;
+    return (contentsJPerK * this.contentsC + this.loadJPerK * this.loadC) / (contentsJPerK + this.loadJPerK);
+  }
+
+  private stepLoad(dtS: number): void {
+    this.loadC = relax(this.loadC, this.loadJPerK, this.loadWPerK, this.loadWPerK * this.airC, dtS);
+    if (Math.abs(this.loadC - this.contentsC) > LOAD_MERGE_K) return;
+    this.mergeIntoContents(this.loadJPerK, this.loadC);
+    this.loadJPerK = this.loadWPerK = 0;
   }
 
   /** Groceries taken out at the contents' temperature: capacity shrinks, temperature stays. */
@@ -118,8 +139,19 @@ export class Compartment {
     if (this.extraContentsJPerK < 1) this.extraContentsJPerK = 0;
   }
 
-  /** Warm groceries mixed into the contents (energy-conserving); they are eaten over days. */
-  addContents(capacityJPerK: number, tempC: number): void {
+  /**
+   * Warm groceries: a node of their own that exchanges with the air (bags and packs have much
+   * surface: about 0.8 W/K per kg, common practice from memory) until it reaches the contents.
+   */
+  addLoad(kg: number, capacityJPerK: number, tempC: number): void {
+    if (this.loadJPerK > 0) this.mergeIntoContents(this.loadJPerK, this.loadC);
+    this.loadJPerK = capacityJPerK;
+    this.loadWPerK = LOAD_W_PER_K_PER_KG * kg;
+    this.loadC = tempC;
+  }
+
+  /** Mixes heat capacity at a temperature into the contents (energy-conserving). */
+  private mergeIntoContents(capacityJPerK: number, tempC: number): void {
     const total = this.params.contentsJPerK + this.extraContentsJPerK;
     this.contentsC = (total * this.contentsC + capacityJPerK * tempC) / (total + capacityJPerK);
     this.extraContentsJPerK += capacityJPerK;

@@ -141,13 +141,17 @@ function scaleCabinet(p: ApplianceProfile, rng: Rng): void {
   p.freezerContentsJPerK *= size * uniform(rng, 0.5, 1.4);
   p.freshFoodAirJPerK *= size;
   p.freezerAirJPerK *= size;
+  p.freshFoodShellJPerK *= size * uniform(rng, 0.8, 1.25);
+  p.freezerShellJPerK *= size * uniform(rng, 0.8, 1.25);
+  p.freshFoodAirToShellWPerK *= wallScale * uniform(rng, 0.8, 1.25);
+  p.freezerAirToShellWPerK *= wallScale * uniform(rng, 0.8, 1.25);
   p.freshFoodUaWPerK *= wallScale;
   p.freezerUaWPerK *= wallScale;
   p.partitionUaWPerK *= wallScale * uniform(rng, 0.8, 1.25);
   p.freshFoodAirToContentsWPerK *= wallScale * uniform(rng, 0.8, 1.25);
   p.freezerAirToContentsWPerK *= wallScale * uniform(rng, 0.8, 1.25);
   p.evaporatorAirflowWPerK *= Math.sqrt(size) * uniform(rng, 0.8, 1.25);
-  p.freshFoodAirShare *= uniform(rng, 0.8, 1.25);
+  p.freshFoodAirShare *= uniform(rng, 0.75, 1.1);
   p.ductNaturalWPerK *= wallScale * uniform(rng, 0.8, 1.25);
   p.coilNaturalWPerK *= wallScale * uniform(rng, 0.8, 1.25);
 }

@@ -25,6 +25,9 @@ const FRESH_GROCERY_J_PER_KG_K = 3600;
 const FROZEN_GROCERY_J_PER_KG_K = 2500;
 const FRESH_GROCERY_C = 12;
 const FROZEN_GROCERY_C = -5;
+/** Putting the shopping away keeps the doors open a while. */
+const GROCERY_FRESH_DOOR_S = 150;
+const GROCERY_FREEZER_DOOR_S = 40;
 
 /** What a real sensor cannot see: true air and food temperatures, coil, frost, room. */
 export interface SimTruth {
@@ -161,12 +164,12 @@ export class ApplianceSimulator {
     const freshKg = load.kg * (1 - freezerShare);
     const frozenKg = load.kg * freezerShare;
     if (freshKg > 0) {
-      this.cabinet.fresh.addContents(freshKg * FRESH_GROCERY_J_PER_KG_K, FRESH_GROCERY_C);
-      this.doors.openFor(this.doors.freshFood, load.atMs, 90, stepEndMs);
+      this.cabinet.fresh.addLoad(freshKg, freshKg * FRESH_GROCERY_J_PER_KG_K, FRESH_GROCERY_C);
+      this.doors.openFor(this.doors.freshFood, load.atMs, GROCERY_FRESH_DOOR_S, stepEndMs);
     }
     if (frozenKg > 0) {
-      this.cabinet.freezer.addContents(frozenKg * FROZEN_GROCERY_J_PER_KG_K, FROZEN_GROCERY_C);
-      this.doors.openFor(this.doors.freezer, load.atMs, 30, stepEndMs);
+      this.cabinet.freezer.addLoad(frozenKg, frozenKg * FROZEN_GROCERY_J_PER_KG_K, FROZEN_GROCERY_C);
+      this.doors.openFor(this.doors.freezer, load.atMs, GROCERY_FREEZER_DOOR_S, stepEndMs);
     }
   }
 
@@ -201,9 +204,9 @@ export class ApplianceSimulator {
     const c = this.cabinet;
     return {
       freshAirC: c.fresh.airC,
-      freshFoodC: c.fresh.contentsC,
+      freshFoodC: c.fresh.foodC,
       freezerAirC: c.freezer.airC,
-      freezerFoodC: c.freezer.contentsC,
+      freezerFoodC: c.freezer.foodC,
       coilC: c.coilC,
       iceKg: c.iceKg,
       roomC: this.climate.tempC(this.currentMs),
