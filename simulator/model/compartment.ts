@@ -5,14 +5,16 @@
  * stable for any step, so a 20 s step can carry an air node of well under a minute.
  * - air: the cabinet air, the probe and light fittings (1–3 kJ/K); the probe reads it;
  * - shell: liner, shelves and drawers (15–40 kJ/K), which take 90 % of the wall heat;
- * - contents: the food (tens to hundreds of kJ/K), reached only through the air.
+ * - contents: the food (tens to hundreds of kJ/K), reached only through the air;
+ * - a fresh grocery load, while it lasts: its own node exchanging with the air.
  * A thermostat sensor in a plastic housing follows the air with a lag of several minutes
  * (common practice of control boards), which sets the length of the compressor cycles.
  * Food freezes and thaws between −2.5 and −0.5 °C: the latent heat of its water (334 kJ/kg;
  * 2 kJ/(kg·K) for frozen food, 40 % of the contents by mass being water that freezes, with
  * packaging and shelves the rest: common practice, from memory) is spread over that range as
  * extra heat capacity. That is what lets a full freezer hold for about two days without power
- * (USDA FSIS, "Keeping Food Safe During an Emergency": about 48 h full, 24 h half full).
+ * (USDA FSIS, "Keeping Food Safe During an Emergency": about 48 h full, 24 h half full; here a
+ * full upright freezer starts to thaw after about 15 h and has thawed through after 3–4 days).
  */
 
 export const WALL_SHARE_TO_AIR = 0.1;

@@ -13,6 +13,8 @@
  *   while a door is open.
  * - power-loss: nothing runs (compressor, fans, heater, defrost timer); the battery sensor reports.
  * - sensor faults act on the readings only (see probe.ts).
+ * A fault on a part the style lacks does nothing: evaporator-fan on a cold-wall chest freezer,
+ * defrost-system on a unit without automatic defrost, air-damper on a single-compartment unit.
  */
 import type { Probe } from '../../shared/domain';
 import type { FaultCode, ScheduledFault } from './types';

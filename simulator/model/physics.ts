@@ -15,7 +15,8 @@
  * - the defrost heater warms the coil (15 % straight into the freezer air by radiation); frost
  *   melts at 0 °C taking 334 kJ/kg (latent heat of fusion of ice, a physical constant).
  * Frost chokes the fresh-food duct first (from 0.5 kg, nearly shut at 1.6 kg), the freezer path
- * later (1.2–3.5 kg) and halves the coil's effectiveness; the figures are chosen so a dead heater shows in 1–4 days (common practice).
+ * later (1.2–3.5 kg) and cuts the coil's effectiveness by up to 60 %; the figures are chosen so
+ * a dead heater shows in the fresh-food section 1–4 days later (common practice).
  */
 import type { ApplianceProfile } from './types';
 import { AirPaths, Compartment, newAirPaths, relax } from './compartment';

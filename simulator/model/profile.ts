@@ -4,14 +4,18 @@
  * The default top-freezer is an ordinary frost-free unit of about 500 L (350 L fresh food,
  * 150 L freezer), moderately stocked. Its numbers are engineering estimates (from memory, common
  * practice for this size): walls about 1.0 W/K (fresh food) and 0.75 W/K (freezer), a compressor
- * lifting about 130 W at a −25 °C coil, a fan stream of about 18 W/K (≈15 L/s of air) with
- * 30 % sent to the fresh-food section, defrost every 10 h for 30 min with a 450 W heater.
- * The fresh-food contents (160 kJ/K ≈ 30 kg of food plus liner and glass) are calibrated so a
- * closed unit without power passes 4 °C after about 4 h (USDA FSIS, "Keeping Food Safe During an
- * Emergency": about 4 h), and the partition and duct leaks so a stopped evaporator fan leaves
- * the fresh-food section near 10 °C (common practice). randomProfile scales size, fill, habits,
- * room and controls widely and sizes the compressor from the unit's own heat load at a 32 °C
- * room, so every random unit can hold its setpoints when healthy.
+ * lifting about 100 W at a −25 °C coil (duty about 50 % in a 22 °C room), a fan stream of about
+ * 18 W/K (≈15 L/s of air) with 15 % sent to the fresh-food section, defrost every 10 h for
+ * 30 min with a 350 W heater, fresh food held at 2.5 °C (a middle setting), freezer at −18 °C.
+ * Calibration, checked by the specs in spec/simulator:
+ * - the fresh-food contents (120 kJ/K ≈ 25 kg of food plus glass and drawers) make a closed unit
+ *   without power pass 4 °C after about 4 h (USDA FSIS, "Keeping Food Safe During an Emergency":
+ *   about 4 h); the cabinet air, which the probe reads, gets there after about 2 h;
+ * - partition and duct leaks leave the fresh-food section near 10 °C and the freezer near −7 °C
+ *   with the evaporator fan stopped (common practice: about 10 °C / 50 °F);
+ * - freezer contents (50 kJ/K ≈ 20 kg) with their latent heat hold frozen for one to three days.
+ * randomProfile scales size, fill, habits, room and controls widely and sizes the compressor from
+ * the unit's own heat load at a 32 °C room, so every random unit holds its setpoints when healthy.
  */
 import type { ApplianceStyle } from '../../shared/domain';
 import { APPLIANCE_STYLES } from '../../shared/domain';

@@ -2,7 +2,7 @@
  * Each mechanical fault against the signature the repair trade knows, always compared with the
  * same appliance, seed and days without the fault.
  */
-import { defaultProfile, generateTrace } from '../../simulator/model';
+import { ApplianceSimulator, defaultProfile, generateTrace } from '../../simulator/model';
 import type { ApplianceProfile, FaultCode, SimSample } from '../../simulator/model';
 import {
   DAY_MS,
@@ -142,5 +142,18 @@ describe('simulator: mechanical fault signatures', () => {
     const recovered = day(trace, 2);
     expect(median(freshValues(recovered))).toBeLessThan(5);
     expect(median(freezerValues(recovered))).toBeLessThan(-15);
+  });
+
+  it('takes faults injected and cleared while running', () => {
+    const sim = new ApplianceSimulator(defaultProfile(), { seed: 5, startMs: START_MS });
+    sim.advanceTo(START_MS + DAY_MS);
+    const healthyC = sim.truth().freshFoodC;
+    sim.injectFault({ fault: 'compressor-start', startMs: sim.nowMs });
+    sim.advanceTo(START_MS + 2 * DAY_MS);
+    expect(sim.sample()?.compressorOn ?? false).toBeFalse();
+    expect(sim.truth().freshFoodC).toBeGreaterThan(healthyC + 3);
+    sim.clearFault('compressor-start', sim.nowMs);
+    sim.advanceTo(START_MS + 3 * DAY_MS);
+    expect(sim.truth().freshFoodC).toBeLessThan(healthyC + 1);
   });
 });
