@@ -118,7 +118,10 @@ export class TcpProxy {
 
   async start(): Promise<number> {
     this.server = net.createServer((client) => {
-      if (this.isDown) return client.destroy();
+      if (this.isDown) {
+        client.destroy();
+        return;
+      }
       const upstream = net.connect(this.targetPort, this.targetHost);
       for (const socket of [client, upstream]) {
         this.sockets.add(socket);
