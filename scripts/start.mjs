@@ -18,9 +18,12 @@ async function banner(env) {
   const lines = [``, `  Chillwarden is running at ${env.PUBLIC_URL}`, ``];
   try {
     const accounts = await import(pathToFileURL(path.join(ROOT, 'dist', 'server', 'seeds', 'demo-accounts.js')).href);
-    lines.push('  Demo sign-ins:');
-    for (const account of accounts.DEMO_ACCOUNTS ?? accounts.default?.DEMO_ACCOUNTS ?? []) {
-      lines.push(`    ${account.role.padEnd(10)} ${account.email.padEnd(34)} ${account.password}${account.note ? `   ${account.note}` : ''}`);
+    const list = accounts.DEMO_ACCOUNTS ?? accounts.default?.DEMO_ACCOUNTS ?? [];
+    const emailWidth = Math.max(...list.map((account) => account.email.length));
+    const passwordWidth = Math.max(...list.map((account) => account.password.length));
+    lines.push('  Demo sign-ins (e-mail, password):');
+    for (const account of list) {
+      lines.push(`    ${account.role.padEnd(10)} ${account.email.padEnd(emailWidth)}  ${account.password.padEnd(passwordWidth)}  ${account.note ?? ''}`.trimEnd());
     }
     lines.push('');
   } catch {

@@ -6,6 +6,8 @@ import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import type { Logger } from 'pino';
 import type { DataSource } from 'typeorm';
+import { createAccounts, type AccountsOptions } from './auth/accounts';
+import { RouteGroup, RouteTable } from './auth/route-table';
 import type { AppConfig } from './config';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { healthRouter } from './routes/health';
@@ -18,6 +20,8 @@ export interface AppDeps {
   logger: Logger;
   brokerProbe: ComponentProbe;
   version: string;
+  /** Sign-in, sessions and mail; specs that never sign in may leave it out. */
+  accounts?: AccountsOptions;
 }
 
 function securityHeaders(config: AppConfig) {
@@ -80,8 +84,21 @@ export function createApp(deps: AppDeps): Express {
   app.use(requestLogger(logger));
   app.use(express.json({ limit: '256kb' }));
 
+  // Every route is mounted through the route table, which records its access rule.
+  const routes = new RouteTable();
   const health = new HealthService(deps.version, { database: databaseProbe(deps.dataSource), broker: deps.brokerProbe });
-  app.use('/api/health', healthRouter(health));
+  // The health router answers both paths; each is declared so the table lists it.
+  const healthApi = healthRouter(health);
+  routes.mount(
+    app,
+    new RouteGroup('/api/health')
+      .get('/', { access: 'public', scope: 'none', summary: 'component health report' }, healthApi)
+      .get('/ready', { access: 'public', scope: 'none', summary: 'readiness: 503 while a component is down' }, healthApi),
+  );
+
+  const accounts = createAccounts({ config, dataSource: deps.dataSource, logger, options: deps.accounts });
+  app.use('/api', ...accounts.middleware);
+  routes.mount(app, ...accounts.routes);
 
   app.use('/api', apiNotFound);
   app.use(clientApp(config.clientDir));

@@ -1,9 +1,11 @@
 import 'reflect-metadata';
 import pino from 'pino';
 import { createApp } from './app';
+import { loadSessionSecret } from './auth/secrets';
 import { loadConfig, packageVersion } from './config';
 import { AppDataSource } from './data-source';
 import { startIngestInServer } from './ingest/start';
+import { startMail } from './mail/setup';
 import { brokerProbe } from './services/broker-probe';
 
 /** Starts the server: connects, migrates, listens; stops cleanly on SIGINT/SIGTERM. */
@@ -14,8 +16,15 @@ async function main(): Promise<void> {
   const applied = await AppDataSource.runMigrations({ transaction: 'each' });
   if (applied.length) logger.info({ migrations: applied.map((m) => m.name) }, 'migrations applied');
 
-  const app = createApp({ config, dataSource: AppDataSource, logger, brokerProbe: brokerProbe(config.mqttUrl), version: packageVersion() });
-  const server = app.listen(config.port, config.host, () => logger.info(`listening on ${config.publicUrl}`));
+  const mail = await startMail(process.env, { dataDir: config.dataDir, host: config.host });
+  logger.info(mail.description);
+  const devInbox = mail.inboxOverHttp ? mail.inbox : null;
+  const accounts = { mailer: mail.mailer, devInbox, sessionSecret: loadSessionSecret(process.env, config.dataDir) };
+  const app = createApp({ config, dataSource: AppDataSource, logger, brokerProbe: brokerProbe(config.mqttUrl), version: packageVersion(), accounts });
+  const server = app.listen(config.port, config.host, () => {
+    logger.info(`listening on ${config.publicUrl}`);
+    if (devInbox) logger.info(`dev inbox (e-mail sent by the server) at ${config.publicUrl}/dev/inbox`);
+  });
   // Live detection will be passed here as the committed-batch hook (see server/ingest/pipeline.ts).
   const ingest = await startIngestInServer(config, logger);
 
@@ -24,6 +33,7 @@ async function main(): Promise<void> {
     server.close();
     server.closeAllConnections();
     await ingest?.stop();
+    await mail.close();
     await AppDataSource.destroy();
     process.exit(0);
   };

@@ -1,5 +1,6 @@
 // The demo scenario's steps, in the order they run. Add a step here.
 import type { SeedStep } from '../context';
+import { accountsStep } from './accounts';
 import { fleetStep } from './fleet';
 
-export const SEED_STEPS: SeedStep[] = [fleetStep];
+export const SEED_STEPS: SeedStep[] = [fleetStep, accountsStep];

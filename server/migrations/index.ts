@@ -1,5 +1,6 @@
 // Migrations in the order they run. Add a new one at the end (see DEVELOPERS.md).
 import { CoreSchema1764633600000 } from './1764633600000-core-schema';
 import { TelemetryStorage1796163938389 } from './1796163938389-telemetry-storage';
+import { Accounts1796164600000 } from './1796164600000-accounts';
 
-export const MIGRATIONS = [CoreSchema1764633600000, TelemetryStorage1796163938389];
+export const MIGRATIONS = [CoreSchema1764633600000, TelemetryStorage1796163938389, Accounts1796164600000];

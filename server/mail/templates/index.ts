@@ -1,0 +1,6 @@
+// Every e-mail the product sends, in one place. Add a template here and a method to
+// server/services/mail.ts.
+export { emailChangedMail, passwordChangedMail } from './account-notices';
+export { invitationMail, type InvitationMail } from './invitation';
+export { compose, escapeHtml, PRODUCT_NAME, type MailBody, type MailContent } from './layout';
+export { passwordResetMail, type PasswordResetMail } from './password-reset';
