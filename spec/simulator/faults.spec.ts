@@ -6,6 +6,7 @@ import { ApplianceSimulator, defaultProfile, generateTrace } from '../../simulat
 import type { ApplianceProfile, FaultCode, SimSample } from '../../simulator/model';
 import {
   DAY_MS,
+  HOUR_MS,
   MINUTE_MS,
   START_MS,
   between,
@@ -76,21 +77,25 @@ describe('simulator: mechanical fault signatures', () => {
     expect(dutyCycle(healthyDay)).toBeLessThan(0.75);
   });
 
-  it('condenser airflow blocked is worse on a hot day', () => {
-    const profile = defaultProfile();
-    const hot = generateTrace({
-      profile,
-      seed: 31,
-      startMs: START_MS,
-      durationMs: 4 * DAY_MS,
-      intervalMs: 2 * MINUTE_MS,
-      faults: [{ fault: 'condenser-airflow', startMs: START_MS - DAY_MS }],
-      warmupMs: 2 * DAY_MS,
-      extraEvents: [{ kind: 'hot-day', atMs: START_MS + 2 * DAY_MS, magnitude: 8 }],
-    });
-    const coolDay = median(freezerValues(day(hot, 1)));
-    const hotDay = median(freezerValues(between(hot, START_MS + 2 * DAY_MS + 4 * 3_600_000, START_MS + 3 * DAY_MS - 4 * 3_600_000)));
-    expect(hotDay).toBeGreaterThan(coolDay + 2);
+  it('condenser airflow blocked is worse on a hot day, where a healthy unit holds', () => {
+    // Common practice: a weak condenser shows most on hot days; a healthy unit has the margin.
+    const hotDayRiseK = (faulty: boolean) => {
+      const trace = generateTrace({
+        profile: defaultProfile(),
+        seed: 31,
+        startMs: START_MS,
+        durationMs: 3 * DAY_MS,
+        intervalMs: 2 * MINUTE_MS,
+        faults: faulty ? [{ fault: 'condenser-airflow', startMs: START_MS - DAY_MS }] : [],
+        warmupMs: 2 * DAY_MS,
+        extraEvents: [{ kind: 'hot-day', atMs: START_MS + DAY_MS, magnitude: 8 }],
+      });
+      const before = median(freezerValues(day(trace, 0)));
+      const hot = median(freezerValues(between(trace, START_MS + DAY_MS + 6 * HOUR_MS, START_MS + 2 * DAY_MS - 3 * HOUR_MS)));
+      return hot - before;
+    };
+    expect(hotDayRiseK(false)).toBeLessThan(1);
+    expect(hotDayRiseK(true)).toBeGreaterThan(2);
   });
 
   it('air damper stuck closed: fresh food warms while the freezer gets colder', () => {

@@ -156,3 +156,18 @@ describe('simulator: door habits', () => {
     expect(afterC - beforeC).toBeLessThan(1);
   });
 });
+
+describe('simulator: the room', () => {
+  it('warms by day and cools by night around its mean', () => {
+    const profile = { ...defaultProfile(), roomMeanC: 21, roomDailySwingK: 2, roomPeakHourLocal: 15, roomWeatherSwingK: 0 };
+    const sim = new ApplianceSimulator(profile, { seed: 1, startMs: START_MS });
+    const byHour: number[] = [];
+    for (let hour = 0; hour < 24; hour++) {
+      sim.advanceTo(START_MS + (hour - profile.utcOffsetHours) * HOUR_MS);
+      byHour.push(sim.truth().roomC);
+    }
+    expect(byHour[15]).toBeCloseTo(23, 1);
+    expect(byHour[3]).toBeCloseTo(19, 1);
+    expect(byHour.reduce((sum, c) => sum + c, 0) / 24).toBeCloseTo(21, 1);
+  });
+});
