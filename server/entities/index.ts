@@ -8,7 +8,8 @@ import { Property } from './property';
 import { Sensor } from './sensor';
 import { Unit } from './unit';
 import { User } from './user';
+import { WORK_ORDER_ENTITIES } from './work-order-entities';
 
 export { Appliance, AuditEntry, Invitation, Organization, PasswordReset, Property, Sensor, Unit, User };
 
-export const ENTITIES = [Organization, User, Property, Unit, Appliance, Sensor, Invitation, PasswordReset, AuditEntry];
+export const ENTITIES = [Organization, User, Property, Unit, Appliance, Sensor, Invitation, PasswordReset, AuditEntry, ...WORK_ORDER_ENTITIES];

@@ -1,0 +1,116 @@
+import type { ApplianceStyle, Health } from '../../shared/domain';
+import { DetectionEngine } from '../detection/engine';
+import { IncidentTracker, type IncidentEvent, type IncidentTrackerState } from '../detection/incidents';
+import { settingsFor } from '../detection/settings';
+import type { EngineState } from '../detection/state';
+import { isRepairFinding, type EngineEvent } from '../detection/types';
+import type { StoredReading } from '../ingest/store';
+import { isSilent } from '../telemetry/liveness';
+import { engineReadingOf } from './readings';
+
+/** Where an appliance sits and how its sensor reports. */
+export interface ApplianceRef {
+  applianceId: string;
+  unitId: string;
+  propertyId: string;
+  organizationId: string;
+  style: ApplianceStyle;
+  /** The shortest reporting interval of its sensors (liveness is judged against it). */
+  intervalSeconds: number;
+}
+
+export interface LastReading {
+  atMs: number;
+  freshFoodC: number | null;
+  freezerC: number | null;
+}
+
+export interface SavedMonitorState {
+  engineState: EngineState;
+  trackerState: IncidentTrackerState;
+  health: Health;
+  healthSinceMs: number;
+  lastReading: LastReading | null;
+}
+
+export interface FeedResult {
+  engineEvents: EngineEvent[];
+  incidentEvents: IncidentEvent[];
+}
+
+/** A saved engine state the current engine cannot take (another version) starts afresh. */
+function restoreEngine(style: ApplianceStyle, saved: EngineState | undefined): DetectionEngine {
+  const settings = settingsFor(style);
+  if (!saved) return new DetectionEngine(style, settings);
+  try {
+    return new DetectionEngine(style, settings, saved);
+  } catch {
+    return new DetectionEngine(style, settings);
+  }
+}
+
+/** One appliance under watch: its engine, its incident tracker and what it last reported. */
+export class MonitoredAppliance {
+  readonly engine: DetectionEngine;
+  readonly tracker: IncidentTracker;
+  health: Health;
+  healthSinceMs: number;
+  lastReading: LastReading | null;
+  /** False until its state is first written (a new row) or after a failed write. */
+  restored: boolean;
+
+  constructor(
+    readonly ref: ApplianceRef,
+    saved: SavedMonitorState | null,
+    nowMs: number,
+  ) {
+    this.engine = restoreEngine(ref.style, saved?.engineState);
+    this.tracker = new IncidentTracker(settingsFor(ref.style), saved?.trackerState);
+    this.health = saved?.health ?? 'silent';
+    this.healthSinceMs = saved?.healthSinceMs ?? nowMs;
+    this.lastReading = saved?.lastReading ?? null;
+    this.restored = saved !== null;
+  }
+
+  /** Time of the newest reading the engine has taken, or null before the first. */
+  get lastAtMs(): number | null {
+    return this.lastReading?.atMs ?? null;
+  }
+
+  /** Feeds readings in time order; readings at or before the last one are skipped by the engine. */
+  feed(readings: readonly Pick<StoredReading, 'atMs' | 'freshFoodC' | 'freezerC' | 'freshFoodFlag' | 'freezerFlag' | 'doorOpen'>[]): FeedResult {
+    const engineEvents: EngineEvent[] = [];
+    const incidentEvents: IncidentEvent[] = [];
+    for (const reading of readings) {
+      if (this.lastReading && reading.atMs <= this.lastReading.atMs) continue;
+      for (const event of this.engine.push(engineReadingOf(reading))) {
+        engineEvents.push(event);
+        incidentEvents.push(...this.tracker.handle(event));
+      }
+      this.lastReading = { atMs: reading.atMs, freshFoodC: reading.freshFoodC, freezerC: reading.freezerC };
+    }
+    // Incidents that stayed recovered for the reopen window close on the reading clock.
+    if (this.lastReading) incidentEvents.push(...this.tracker.tick(this.lastReading.atMs));
+    return { engineEvents, incidentEvents };
+  }
+
+  /** Health by the brief's words; a sensor past its liveness limit is silent whatever the engine thinks. */
+  healthAt(nowMs: number): Health {
+    if (!this.lastReading || isSilent(this.lastReading.atMs, this.ref.intervalSeconds, nowMs)) return 'silent';
+    return this.engine.health();
+  }
+
+  /** Sets the health; true when it changed. */
+  updateHealth(nowMs: number): boolean {
+    const health = this.healthAt(nowMs);
+    if (health === this.health) return false;
+    this.health = health;
+    // A change seen in the readings dates from the reading; silence from the clock.
+    this.healthSinceMs = health === 'silent' || !this.lastReading ? nowMs : this.lastReading.atMs;
+    return true;
+  }
+
+  openRepairFindings(): number {
+    return this.engine.openFindings().filter(isRepairFinding).length;
+  }
+}
