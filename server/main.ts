@@ -1,11 +1,14 @@
 import 'reflect-metadata';
 import pino from 'pino';
 import { createApp } from './app';
+import { systemClock } from './auth/clock';
 import { loadSessionSecret } from './auth/secrets';
 import { loadConfig, packageVersion } from './config';
 import { AppDataSource } from './data-source';
 import { startIngestInServer } from './ingest/start';
+import { EventBus } from './events/bus';
 import { startMail } from './mail/setup';
+import { startMonitor } from './monitor/start';
 import { brokerProbe } from './services/broker-probe';
 
 /** Starts the server: connects, migrates, listens; stops cleanly on SIGINT/SIGTERM. */
@@ -25,14 +28,17 @@ async function main(): Promise<void> {
     logger.info(`listening on ${config.publicUrl}`);
     if (devInbox) logger.info(`dev inbox (e-mail sent by the server) at ${config.publicUrl}/dev/inbox`);
   });
-  // Live detection will be passed here as the committed-batch hook (see server/ingest/pipeline.ts).
-  const ingest = await startIngestInServer(config, logger);
+  // Live detection: every committed batch goes through the monitor, which publishes on the bus.
+  const bus = new EventBus(logger);
+  const monitor = startMonitor({ dataSource: AppDataSource, bus, logger, clock: systemClock });
+  const ingest = await startIngestInServer(config, logger, monitor.service.hook);
 
   const stop = async (signal: string) => {
     logger.info({ signal }, 'stopping');
     server.close();
     server.closeAllConnections();
     await ingest?.stop();
+    await monitor.stop();
     await mail.close();
     await AppDataSource.destroy();
     process.exit(0);
