@@ -4,7 +4,8 @@
  *   set + band/2 and ends below set − band/2;
  * - the compressor relay closes while either compartment demands, with a minimum off time (to
  *   let the pressures equalise before a restart) and a minimum on time;
- * - the evaporator fan runs whenever the relay is closed (also if the compressor fails to start);
+ * - the evaporator fan runs whenever the relay is closed (also if the compressor fails to start
+ *   or its overload protector has tripped);
  * - the damper opens while the fresh-food section demands (and stays put without power);
  * - automatic defrost every `defrostIntervalH` hours of powered time, start to start:
  *   compressor and fan stop, the heater runs until the coil reaches +10 °C (termination
@@ -16,6 +17,7 @@ import type { FaultEffects } from './faults';
 
 const DEFROST_TERMINATION_C = 10;
 const DRIP_S = 240;
+const OVERLOAD_RESET_S = 480;
 
 export class Controls {
   freshDemand = false;
@@ -29,6 +31,8 @@ export class Controls {
   private sinceDefrostS: number;
   private defrostRemainingS = 0;
   private heaterDone = false;
+  private runStartMs = -Infinity;
+  private overloadUntilMs = -Infinity;
 
   constructor(
     private readonly p: ApplianceProfile,
@@ -49,11 +53,24 @@ export class Controls {
     this.updateDemand(freshAirC, freezerAirC);
     const wantsCooling = powered && !this.defrosting && (this.freshDemand || this.freezerDemand);
     this.switchRelay(atMs, wantsCooling, powered && !this.defrosting);
-    this.compressorRunning = this.relayClosed && effects.compressorCanRun;
+    this.updateCompressor(atMs, effects);
     this.fanRunning = this.relayClosed;
     this.heaterOn = powered && this.defrosting && !this.heaterDone;
     // A motorised damper stays where it was when the power goes.
     if (powered) this.damperOpen = this.freshDemand;
+  }
+
+  /** The compressor runs with the relay unless it cannot start or its overload has tripped. */
+  private updateCompressor(atMs: number, effects: FaultEffects): void {
+    const wasRunning = this.compressorRunning;
+    this.compressorRunning = this.relayClosed && effects.compressorCanRun && atMs >= this.overloadUntilMs;
+    if (!this.compressorRunning) return;
+    if (!wasRunning) this.runStartMs = atMs;
+    const runS = (atMs - this.runStartMs) / 1000;
+    if (effects.overloadTripAfterS > 0 && runS >= effects.overloadTripAfterS) {
+      this.overloadUntilMs = atMs + OVERLOAD_RESET_S * 1000;
+      this.compressorRunning = false;
+    }
   }
 
   private advanceDefrost(dtS: number, coilC: number): void {

@@ -3,10 +3,14 @@
  * physics reads every step; severity (0..1, default 1) scales them. The signatures follow
  * common practice of the repair trade (from memory):
  * - evaporator-fan: airflow over the coil × (1 − severity); at 1 only natural convection is left.
+ *   The fresh-food section then settles where the room and the partition balance: near 10 °C in
+ *   a 22 °C room (the trade's figure), 4–7 °C in an 18–20 °C room, about 12 °C at 28 °C; the
+ *   freezer, not cold enough, is the steadier sign (−13..−2 °C over random profiles).
  * - defrost-system: heater power × (1 − severity); the defrost timer still stops the compressor,
  *   frost builds up and chokes the air paths (fresh-food duct first).
  * - condenser-airflow: compressor capacity × (1 − 0.6·severity), a further 3 %·severity lost
- *   per K of room above 24 °C (a hot day makes it worse).
+ *   per K of room above 24 °C (a hot day makes it worse); the hot compressor's overload
+ *   protector trips after an hour of continuous running (severity ≥ 0.3) and resets after 8 min.
  * - compressor-start: the compressor never runs; fan, controls and defrost timer still do.
  * - air-damper: the damper is stuck closed; severity 1 leaves only the normal leak.
  * - door-seal: extra infiltration of room air (and frost) into both compartments, more exchange
@@ -35,6 +39,8 @@ export interface FaultEffects {
   fanAirflowFactor: number;
   capacityFactor: number;
   condenserHotLossPerK: number;
+  /** Continuous run after which the compressor's overload protector trips (0 = never). */
+  overloadTripAfterS: number;
   heaterFactor: number;
   /** 0 = damper works, 1 = stuck fully closed. */
   damperClosed: number;
@@ -55,6 +61,7 @@ export function noFaultEffects(): FaultEffects {
     fanAirflowFactor: 1,
     capacityFactor: 1,
     condenserHotLossPerK: 0,
+    overloadTripAfterS: 0,
     heaterFactor: 1,
     damperClosed: 0,
     sealLeak: 0,
@@ -76,6 +83,7 @@ function reset(effects: FaultEffects): void {
   effects.fanAirflowFactor = 1;
   effects.capacityFactor = 1;
   effects.condenserHotLossPerK = 0;
+  effects.overloadTripAfterS = 0;
   effects.heaterFactor = 1;
   effects.damperClosed = 0;
   effects.sealLeak = 0;
@@ -115,6 +123,7 @@ function applyFault(code: FaultCode, severity: number, probe: Probe | undefined,
     case 'condenser-airflow':
       e.capacityFactor = Math.min(e.capacityFactor, 1 - 0.6 * severity);
       e.condenserHotLossPerK = Math.max(e.condenserHotLossPerK, 0.03 * severity);
+      if (severity >= 0.3) e.overloadTripAfterS = 3600 / severity;
       return;
     case 'defrost-system':
       e.heaterFactor = Math.min(e.heaterFactor, 1 - severity);

@@ -67,13 +67,14 @@ describe('simulator: mechanical fault signatures', () => {
   });
 
   it('condenser airflow blocked: cabinet drifts up a few degrees, compressor runs almost all the time', () => {
-    // Common practice: capacity lost to a dirty coil or a stalled condenser fan (30–60 %).
+    // Common practice: capacity lost to a dirty coil or a stalled condenser fan (30–60 %); the hot
+    // compressor runs on until its overload protector trips, rests a few minutes and restarts.
     const lastDay = day(traceWith('condenser-airflow', 5), 4);
     const healthyDay = day(healthy, 4);
     const driftK = median(freezerValues(lastDay)) - median(freezerValues(healthyDay));
-    expect(driftK).toBeGreaterThan(1);
-    expect(driftK).toBeLessThan(8);
-    expect(dutyCycle(lastDay)).toBeGreaterThan(0.85);
+    expect(driftK).toBeGreaterThan(2);
+    expect(driftK).toBeLessThan(10);
+    expect(dutyCycle(lastDay)).toBeGreaterThan(0.8);
     expect(dutyCycle(healthyDay)).toBeLessThan(0.75);
   });
 
