@@ -1,7 +1,7 @@
 /**
  * Speed of generateTrace (a benchmark, not a unit test). Targets from the simulator's issue:
  * a year at one-minute interval in a few seconds at most, a week at five minutes in milliseconds.
- * Run: TSX_TSCONFIG_PATH=server/tsconfig.json node --import tsx spec/simulator/trace-bench.ts
+ * Run: TSX_TSCONFIG_PATH=server/tsconfig.json node --import tsx spec/bench/simulator-bench.ts
  */
 import { defaultProfile, generateTrace } from '../../simulator/model';
 import type { ApplianceStyle } from '../../shared/domain';
