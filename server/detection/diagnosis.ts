@@ -15,16 +15,23 @@
  * - door seal: readings turn spiky (warm room air rushes in at every opening) with a modest rise.
  */
 import type { ApplianceStyle, CauseCode } from '../../shared/domain';
+import { DEFAULT_SETTINGS } from './settings';
 import type { ProbableCause } from './types';
 
 export interface ProbeSignature {
-  /** Level minus baseline now (°C). */
+  /** Latest quarter-hour mean minus the baseline (°C): the raw shape, transients included. */
   riseC: number;
-  /** Robust slope of the level (°C/h), null if too few points. */
+  /** Smoothed level minus the baseline (°C). */
+  levelRiseC: number;
+  /** Robust slope of the recent quarter-hour means (°C/h), null if too few points. */
   slopeCPerHour: number | null;
   /** Hours since this probe's rise began, null if it has not risen. */
   hoursRising: number | null;
-  /** Spikiness now relative to the learned normal (1 = as usual). */
+  /** Hours the level has sat well below the baseline, null if it has not. */
+  hoursColder: number | null;
+  /** Hours the cold spell took to develop (an abrupt one is a damper, a slow one ice). */
+  coolingHours: number | null;
+  /** Spikiness now relative to the learned normal (1 = as usual, near 0 = no cycling left). */
   spikeRatio: number | null;
   levelC: number;
 }
@@ -35,77 +42,104 @@ export interface Signature {
   freezer: ProbeSignature | null;
   /** Hours since the last defrost rise relative to the learned interval (null if unknown). */
   defrostOverdueRatio: number | null;
+  /** The last defrost rise relative to the unit's normal one (null if unknown). */
+  lastDefrostRiseRatio: number | null;
   noCooling: boolean;
 }
 
 type Scores = Partial<Record<CauseCode, number>>;
 
-const FAST_FREEZER_C_PER_H = 2.5;
+/** °C per hour: a freezer climbing faster than this has lost its cooling altogether. */
+const FAST_CLIMB_C_PER_H = 2.5;
+/** Below this the compressor is climbing slowly, as it does against a starved condenser. */
+const SLOW_CLIMB_C_PER_H = 0.7;
+/** Share of the freezer's climb the fresh food follows when no fan moves air. */
+const FOLLOW_SHARE = 0.15;
+const CONTINUOUS_RUN_SPIKE_RATIO = DEFAULT_SETTINGS.continuousRunSpikeRatio;
+const SPIKY_RATIO = DEFAULT_SETTINGS.spikyRatio;
 
 function add(scores: Scores, code: CauseCode, weight: number): void {
   scores[code] = (scores[code] ?? 0) + weight;
 }
 
+const slope = (p: ProbeSignature | null) => p?.slopeCPerHour ?? 0;
+
+/** Rise at which a freezer is clearly heading for room temperature, not levelling off. */
+const HEADING_TO_ROOM_C = 6;
+/** A cold spell that develops within this many hours is abrupt (a stuck damper). */
+const ABRUPT_COOLING_HOURS = 8;
+
 function scoreFastClimb(s: Signature, scores: Scores): void {
   const z = s.freezer;
   const f = s.freshFood;
-  const climbing = z ? z.riseC >= 6 && (z.slopeCPerHour ?? 0) >= FAST_FREEZER_C_PER_H : f !== null && f.riseC >= 3 && (f.slopeCPerHour ?? 0) >= 1;
-  if (!climbing && !s.noCooling) return;
-  const weight = climbing ? 3 : 1.5;
-  add(scores, 'compressor-start', weight);
-  add(scores, 'power-loss', weight * 0.5);
-  if (z && f) {
-    // The share of the freezer's climb that the fresh food follows tells a fan that still runs.
-    const share = f.riseC / Math.max(1, z.riseC);
-    add(scores, share < 0.1 ? 'compressor-start' : 'power-loss', 1.5);
+  if (z && (z.riseC >= HEADING_TO_ROOM_C || slope(z) >= FAST_CLIMB_C_PER_H) && z.riseC >= 3) {
+    if (!f) {
+      add(scores, 'compressor-start', 3);
+      add(scores, 'power-loss', 1.5);
+    } else if (f.riseC < FOLLOW_SHARE * z.riseC) {
+      // The fan still runs and carries the freezer's cold into the fresh food.
+      add(scores, 'compressor-start', 4);
+      add(scores, 'power-loss', 1);
+    } else {
+      add(scores, 'power-loss', 3);
+      add(scores, 'compressor-start', 2);
+    }
+    return;
   }
+  if (!z && f && slope(f) >= 1 && f.riseC >= 2) {
+    add(scores, 'compressor-start', 3);
+    add(scores, 'power-loss', 1.5);
+  }
+  if (s.noCooling) add(scores, 'compressor-start', 1.5);
 }
 
 function scoreEvaporatorFan(s: Signature, scores: Scores): void {
   const z = s.freezer;
   const f = s.freshFood;
-  if (s.style === 'chest-freezer') return;
-  if (z && f) {
-    if (f.riseC >= 1 && z.riseC >= 2.5) add(scores, 'evaporator-fan', 2.5);
-    const moderate = z.slopeCPerHour !== null && z.slopeCPerHour < FAST_FREEZER_C_PER_H;
-    if (f.riseC >= 1 && z.riseC >= 2.5 && moderate) add(scores, 'evaporator-fan', 1.5);
-    if (f.levelC >= 6 && f.levelC <= 13 && z.levelC < -3) add(scores, 'evaporator-fan', 1);
-    return;
-  }
-  if (z && z.riseC >= 2.5 && (z.slopeCPerHour ?? 0) < FAST_FREEZER_C_PER_H) add(scores, 'evaporator-fan', 2.5);
-}
-
-function scoreDamper(s: Signature, scores: Scores): void {
-  const z = s.freezer;
-  const f = s.freshFood;
-  if (!z || !f || f.riseC < 1) return;
-  if (z.riseC <= 0.5) add(scores, 'air-damper', 2.5);
-  if (z.riseC <= -1) add(scores, 'air-damper', 1.5);
+  if (s.style === 'chest-freezer' || !z) return;
+  const warmer = z.riseC >= 1.5 && z.riseC < HEADING_TO_ROOM_C;
+  if (f && warmer && f.riseC >= 0.5) add(scores, 'evaporator-fan', 3);
+  if (!f && warmer && slope(z) >= 0.5) add(scores, 'evaporator-fan', 2.5);
+  // Later: both levelled off short of room temperature, fresh food near 10 °C.
+  const plateau = f !== null && f.levelRiseC >= 3 && z.levelRiseC >= 4 && Math.abs(slope(z)) < 0.5;
+  if (plateau) add(scores, 'evaporator-fan', 2.5);
 }
 
 function scoreCondenser(s: Signature, scores: Scores): void {
   const z = s.freezer;
   const f = s.freshFood;
   if (!z) {
-    if (f && f.riseC >= 1 && (f.slopeCPerHour ?? 0) < 0.5) add(scores, 'condenser-airflow', 1.5);
+    if (f && f.levelRiseC >= 1 && slope(f) < 0.5 && (f.spikeRatio ?? 1) < CONTINUOUS_RUN_SPIKE_RATIO) add(scores, 'condenser-airflow', 2);
     return;
   }
-  if (z.riseC < 2) return;
-  const slow = (z.slopeCPerHour ?? 0) < 1;
-  if (!f) add(scores, 'condenser-airflow', slow ? 2.5 : 1);
-  else if (f.riseC <= 0.5) add(scores, 'condenser-airflow', slow ? 3.5 : 2);
+  if (z.levelRiseC < 1 || slope(z) >= SLOW_CLIMB_C_PER_H || z.riseC >= HEADING_TO_ROOM_C) return;
+  if (f && f.levelRiseC > 0.5) return;
+  add(scores, 'condenser-airflow', 2);
+  if ((z.spikeRatio ?? 1) < CONTINUOUS_RUN_SPIKE_RATIO) add(scores, 'condenser-airflow', 1.5);
 }
 
-function scoreDefrost(s: Signature, scores: Scores): void {
-  if (s.defrostOverdueRatio !== null && s.defrostOverdueRatio >= 2) add(scores, 'defrost-system', 3.5);
+function scoreDamperAndDefrost(s: Signature, scores: Scores): void {
+  const z = s.freezer;
+  const f = s.freshFood;
+  const defrostFading = (s.defrostOverdueRatio ?? 0) >= 2 || (s.lastDefrostRiseRatio ?? 1) < 0.6;
+  if (defrostFading) add(scores, 'defrost-system', 1.5);
+  if (!z || !f || f.levelRiseC < 0.8 || z.levelRiseC > 0.5) return;
+  // Fresh food warmer, freezer not: the cold air no longer reaches the fresh food. A damper
+  // sticks at once; ice from a dead defrost heater closes the duct over days.
+  const cooling = z.coolingHours;
+  if (cooling === null) {
+    add(scores, 'air-damper', 2.5);
+    add(scores, 'defrost-system', 1);
+  } else {
+    add(scores, cooling <= ABRUPT_COOLING_HOURS ? 'air-damper' : 'defrost-system', 3.5);
+  }
 }
 
 function scoreDoorSeal(s: Signature, scores: Scores): void {
-  const spikes = [s.freshFood?.spikeRatio ?? null, s.freezer?.spikeRatio ?? null].filter((r): r is number => r !== null);
-  const spiky = spikes.length > 0 && Math.max(...spikes) >= 1.6;
-  if (spiky) add(scores, 'door-seal', 2.5);
-  const f = s.freshFood;
-  if (spiky && f && f.riseC >= 1 && f.riseC < 5) add(scores, 'door-seal', 1);
+  const ratios = [s.freshFood?.spikeRatio, s.freezer?.spikeRatio].filter((r): r is number => r !== null && r !== undefined);
+  const spikiest = ratios.length ? Math.max(...ratios) : 0;
+  if (spikiest >= SPIKY_RATIO) add(scores, 'door-seal', 3);
+  if (spikiest >= 2 * SPIKY_RATIO) add(scores, 'door-seal', 1);
 }
 
 /** Causes an appliance of this style can have (a chest freezer has no fan, damper or auto defrost). */
@@ -122,9 +156,8 @@ export function diagnose(signature: Signature): ProbableCause[] {
   const scores: Scores = {};
   scoreFastClimb(signature, scores);
   scoreEvaporatorFan(signature, scores);
-  scoreDamper(signature, scores);
   scoreCondenser(signature, scores);
-  scoreDefrost(signature, scores);
+  scoreDamperAndDefrost(signature, scores);
   scoreDoorSeal(signature, scores);
   const allowed = possibleCauses(signature.style);
   // A little weight everywhere keeps the list honest: the signature never proves a cause.

@@ -10,12 +10,12 @@
  */
 import type { ApplianceStyle, Health, Probe } from '../../shared/domain';
 import { probesOf } from '../../shared/domain';
-import { defrostProbe, hasOpenRepair, isTrusted, MINUTE_MS, type EngineContext } from './context';
+import { defrostProbe, hasOpenRepair, isTrusted, type EngineContext } from './context';
 import { closeFinding, countFreshAbove, noteAboveHistory, openFinding, updateFinding, type FindingPatch } from './finding-book';
 import { addToBucket, adaptBaseline, bucketMs, closeBucket, finishLearning, learnLevel, resetWindow } from './level';
 import { judgeOverTemp, overTempPatch } from './over-temperature';
 import { judgeValue, recordVerdict } from './probe-check';
-import { cyclePeriodMinutes, defrostRhythm, doorOpeningsPerDay, trackCycle, trackDoor, trackExcursion } from './rhythm';
+import { cyclePeriodMinutes, defrostRhythm, doorOpeningsPerDay, trackCycle, trackDoor, trackExcursion, transientLimitMinutes } from './rhythm';
 import { DEFAULT_SETTINGS, type DetectionSettings } from './settings';
 import { currentCauses } from './signature';
 import { newEngineState, STATE_VERSION, type EngineState, type ProbeState } from './state';
@@ -24,6 +24,12 @@ import { sensorSummary } from './summaries';
 import type { EngineEvent, EngineReading, Finding, LearnedNormal } from './types';
 import { isRepairFinding } from './types';
 import { judgeNoCooling, judgeWarming, noCoolingPatch, warmingPatch } from './warming';
+
+const MINUTE_MS = 60_000;
+
+// tsx/esbuild turn each imported name into a getter on the module object; the functions used
+// for every reading are bound once here so the per-reading path makes plain calls.
+const hot = { judgeValue, recordVerdict, addToBucket, trackCycle, trackExcursion, judgeOverTemp, countFreshAbove, trackDoor, hasOpenRepair };
 
 const NO_EVENTS: readonly EngineEvent[] = Object.freeze([]);
 const INTERVAL_WEIGHT = 0.05;
@@ -38,6 +44,7 @@ export class DetectionEngine {
   private readonly settings: DetectionSettings;
   private readonly ctx: EngineContext;
   private readonly bucketLengthMs: number;
+  private readonly defrostCarrier: ProbeState | undefined;
 
   constructor(style: ApplianceStyle, settings: DetectionSettings = { ...DEFAULT_SETTINGS }, state?: EngineState, options: EngineOptions = {}) {
     if (state && state.version !== STATE_VERSION) throw new Error(`engine state version ${state.version} is not ${STATE_VERSION}`);
@@ -46,6 +53,7 @@ export class DetectionEngine {
     this.state = state ? structuredClone(state) : newEngineState(style, options.probes ?? probesOf(style));
     this.ctx = { state: this.state, settings, events: [] };
     this.bucketLengthMs = bucketMs(settings);
+    this.defrostCarrier = defrostProbe(this.state);
   }
 
   /** Feeds one reading; readings at or before the last one are ignored (duplicates, late arrivals). */
@@ -57,13 +65,14 @@ export class DetectionEngine {
     events.length = 0;
     const gapMs = s.lastAtMs === null ? 0 : atMs - s.lastAtMs;
     this.noteTime(atMs, gapMs);
-    trackDoor(s, reading.doorOpen, atMs);
+    hot.trackDoor(s, reading.doorOpen, atMs);
     const bucket = Math.floor(atMs / this.bucketLengthMs);
     if (s.bucketIndex !== null && bucket !== s.bucketIndex) this.closeBuckets((s.bucketIndex + 1) * this.bucketLengthMs, atMs, gapMs);
     s.bucketIndex = bucket;
+    const stuckAllowed = !hot.hasOpenRepair(s);
     for (let i = 0; i < s.probes.length; i++) {
       const p = s.probes[i];
-      this.takeValue(p, p.probe === 'fresh_food' ? reading.freshFoodC : reading.freezerC, atMs, gapMs);
+      this.takeValue(p, p.probe === 'fresh_food' ? reading.freshFoodC : reading.freezerC, atMs, gapMs, stuckAllowed);
     }
     s.lastAtMs = atMs;
     return events.length ? events.slice() : NO_EVENTS;
@@ -76,20 +85,20 @@ export class DetectionEngine {
       const gapMin = gapMs / MINUTE_MS;
       s.intervalMin = s.intervalMin === null ? gapMin : s.intervalMin + INTERVAL_WEIGHT * (Math.min(gapMin, 60) - s.intervalMin);
     }
-    countFreshAbove(s, gapMs);
+    hot.countFreshAbove(s, gapMs);
   }
 
-  private takeValue(p: ProbeState, valueC: number | null, atMs: number, gapMs: number): void {
+  private takeValue(p: ProbeState, valueC: number | null, atMs: number, gapMs: number, stuckAllowed: boolean): void {
     const settings = this.settings;
-    const verdict = judgeValue(p.validation, valueC, atMs, settings, !hasOpenRepair(this.state));
-    const change = recordVerdict(p.validation, verdict, valueC, atMs, settings);
+    const verdict = hot.judgeValue(p.validation, valueC, atMs, settings, stuckAllowed);
+    const change = hot.recordVerdict(p.validation, verdict, valueC, atMs, settings);
     if (change) this.sensorFaultChanged(p, change, atMs);
     if (verdict !== 'valid') return;
     const value = valueC as number;
-    addToBucket(p.level, value);
-    trackCycle(p.rhythm, value, atMs, gapMs, settings);
-    if (p === defrostProbe(this.state)) trackExcursion(this.state, p.rhythm, value, p.level.levelC ?? p.rhythm.smoothC, atMs, settings);
-    judgeOverTemp(this.ctx, p, value, atMs);
+    hot.addToBucket(p.level, value);
+    hot.trackCycle(p.rhythm, value, atMs, gapMs, settings);
+    hot.trackExcursion(this.state, p.rhythm, value, p.level.levelC ?? p.rhythm.smoothC, atMs, settings, p === this.defrostCarrier);
+    hot.judgeOverTemp(this.ctx, p, value, atMs);
     if (p.probe === 'fresh_food') this.state.lastFreshAbove = value > settings.freshFoodLimitC;
   }
 
@@ -124,12 +133,21 @@ export class DetectionEngine {
     const longGap = gapMs > settings.levelWindowMinutes * MINUTE_MS;
     for (const p of s.probes) {
       if (longGap) resetWindow(p.level);
-      const hasLevel = closeBucket(p.level, bucketEndMs, settings);
+      const hasLevel = closeBucket(p.level, bucketEndMs, settings, this.isTransient(p));
       if (hasLevel && p.level.baselineC === null) learnLevel(p.level);
     }
     if (!s.ready) this.maybeFinishLearning(bucketEndMs);
     if (s.ready) this.judgeBucket(bucketEndMs, atMs);
     noteAboveHistory(s, bucketEndMs);
+  }
+
+  /** Whether this bucket is kept out of the level: a brief excursion, unless it has lasted too long. */
+  private isTransient(p: ProbeState): boolean {
+    const r = p.rhythm;
+    const transient = r.transientInBucket && r.skippedBuckets * this.settings.bucketMinutes < transientLimitMinutes(this.state, this.settings);
+    r.skippedBuckets = transient ? r.skippedBuckets + 1 : 0;
+    r.transientInBucket = r.excursionStartMs !== null;
+    return transient;
   }
 
   private maybeFinishLearning(bucketEndMs: number): void {

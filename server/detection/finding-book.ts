@@ -50,7 +50,8 @@ export function openFinding(state: EngineState, draft: NewFinding, events: Engin
 
 export function findOpen(state: EngineState, id: string | null): Finding | undefined {
   if (id === null) return undefined;
-  return state.findings.find((f) => f.id === id);
+  for (const f of state.findings) if (f.id === id) return f;
+  return undefined;
 }
 
 export function closeFinding(state: EngineState, id: string | null, endedAtMs: number, events: EngineEvent[]): void {

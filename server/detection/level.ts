@@ -37,7 +37,7 @@ export function addToBucket(level: ProbeLevel, valueC: number): void {
  * Closes the bucket: its mean joins the window and the level is recomputed.
  * Returns true when a new level exists. An empty bucket leaves a gap in the level series.
  */
-export function closeBucket(level: ProbeLevel, bucketEndMs: number, settings: DetectionSettings): boolean {
+export function closeBucket(level: ProbeLevel, bucketEndMs: number, settings: DetectionSettings, transient = false): boolean {
   const count = level.bucketCount;
   const meanC = count > 0 ? level.bucketSumC / count : NaN;
   const spikeC = count > 0 ? (level.bucketMaxC as number) - meanC : 0;
@@ -46,6 +46,9 @@ export function closeBucket(level: ProbeLevel, bucketEndMs: number, settings: De
   level.bucketMaxC = null;
   if (count === 0) return false;
   trackSpike(level, spikeC, settings);
+  pushRing(level.recentMeansC, meanC, historyBuckets(settings));
+  pushRing(level.recentTimesMs, bucketEndMs, historyBuckets(settings));
+  if (transient) return false;
   pushRing(level.bucketMeansC, meanC, levelWindowBuckets(settings));
   if (level.bucketMeansC.length * 2 < levelWindowBuckets(settings)) return false;
   level.levelC = medianOfWindow(level.bucketMeansC, scratch);
@@ -101,29 +104,44 @@ export function residualC(level: ProbeLevel): number | null {
   return level.levelC - level.baselineC;
 }
 
-/** Index of the first level inside the window ending at the latest level. */
-function windowStart(level: ProbeLevel, windowMinutes: number): number {
-  const last = level.levelTimesMs.length - 1;
-  const fromMs = level.levelTimesMs[last] - windowMinutes * MINUTE_MS;
+/** Index of the first time inside the window ending at the latest time. */
+function windowStart(timesMs: number[], windowMinutes: number): number {
+  const last = timesMs.length - 1;
+  const fromMs = timesMs[last] - windowMinutes * MINUTE_MS;
   let start = last;
-  while (start > 0 && level.levelTimesMs[start - 1] >= fromMs) start--;
+  while (start > 0 && timesMs[start - 1] >= fromMs) start--;
   return start;
 }
 
 /** Robust slope of the level over the window, °C per hour; null with too few points. */
 export function robustSlopeCPerHour(level: ProbeLevel, windowMinutes: number): number | null {
-  if (level.levelTimesMs.length < 3) return null;
-  const start = windowStart(level, windowMinutes);
-  const count = level.levelTimesMs.length - start;
+  return seriesSlopeCPerHour(level.levelTimesMs, level.levelsC, windowMinutes);
+}
+
+/** The same over every recent bucket mean, transients included (for the diagnosis). */
+export function recentSlopeCPerHour(level: ProbeLevel, windowMinutes: number): number | null {
+  return seriesSlopeCPerHour(level.recentTimesMs, level.recentMeansC, windowMinutes);
+}
+
+/** Latest bucket mean minus the baseline. */
+export function recentRiseC(level: ProbeLevel): number | null {
+  if (level.baselineC === null || level.recentMeansC.length === 0) return null;
+  return level.recentMeansC[level.recentMeansC.length - 1] - level.baselineC;
+}
+
+function seriesSlopeCPerHour(timesMs: number[], valuesC: number[], windowMinutes: number): number | null {
+  if (timesMs.length < 3) return null;
+  const start = windowStart(timesMs, windowMinutes);
+  const count = timesMs.length - start;
   if (count < 3) return null;
-  const perMs = theilSenSlope(level.levelTimesMs, level.levelsC, start, count);
+  const perMs = theilSenSlope(timesMs, valuesC, start, count);
   return perMs === null ? null : perMs * HOUR_MS;
 }
 
 /** When the least-squares line through the recent levels reaches `limitC`, or null. */
 export function forecastCrossingMs(level: ProbeLevel, limitC: number, settings: DetectionSettings): number | null {
   if (level.levelTimesMs.length < 3 || level.levelC === null || level.levelC >= limitC) return null;
-  const start = windowStart(level, settings.forecastWindowMinutes);
+  const start = windowStart(level.levelTimesMs, settings.forecastWindowMinutes);
   const lastMs = level.levelTimesMs[level.levelTimesMs.length - 1];
   const hours = level.levelTimesMs.slice(start).map((t) => (t - lastMs) / HOUR_MS);
   const fit = leastSquares(hours, level.levelsC.slice(start));

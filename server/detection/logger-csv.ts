@@ -5,7 +5,7 @@
  * reads a year of one-minute rows several times faster (see spec/bench/csv-read-bench.ts).
  */
 import { fToC } from '../../shared/temperature';
-import { parseTimestampMs } from './timestamp';
+import { parseTimestampAt } from './timestamp';
 
 export class LoggerFileError extends Error {}
 
@@ -64,14 +64,43 @@ function findColumns(headerLine: string): Columns {
   return { timestamp, freshFood: fresh.index, freezer: freezer.index, fahrenheit: usedFahrenheit, count: names.length };
 }
 
-/** Parses one temperature cell; NaN for an empty cell, undefined for an unreadable one. */
-function parseCell(cell: string, fahrenheit: boolean): number | undefined {
-  let text = cell;
-  if (text.length === 0) return NaN;
-  if (text.charCodeAt(0) === 32 || text.charCodeAt(text.length - 1) === 32 || text.charCodeAt(0) === 34) {
-    text = text.trim().replace(/^"(.*)"$/, '$1').trim();
-    if (text.length === 0) return NaN;
+/**
+ * Parses the temperature in text[from, end) without making a substring: NaN for an empty
+ * cell, undefined for an unreadable one. Plain decimals take the fast path; anything else
+ * (spaces, quotes, exponents) goes through Number().
+ */
+function parseCellAt(text: string, from: number, end: number, fahrenheit: boolean): number | undefined {
+  if (from >= end) return NaN;
+  let at = from;
+  let negative = false;
+  const first = text.charCodeAt(at);
+  if (first === 45 || first === 43) {
+    negative = first === 45;
+    at++;
   }
+  let value = 0;
+  let digits = 0;
+  let scale = 0;
+  for (; at < end; at++) {
+    const code = text.charCodeAt(at);
+    if (code >= 48 && code <= 57) {
+      value = value * 10 + (code - 48);
+      digits++;
+      if (scale) scale *= 10;
+    } else if (code === 46 && !scale) {
+      scale = 1;
+    } else {
+      return parseCellSlow(text.slice(from, end), fahrenheit);
+    }
+  }
+  if (digits === 0) return parseCellSlow(text.slice(from, end), fahrenheit);
+  const number = (negative ? -value : value) / (scale || 1);
+  return fahrenheit ? fToC(number) : number;
+}
+
+function parseCellSlow(cell: string, fahrenheit: boolean): number | undefined {
+  const text = cell.trim().replace(/^"(.*)"$/, '$1').trim();
+  if (text.length === 0) return NaN;
   const value = Number(text);
   if (!Number.isFinite(value)) return undefined;
   return fahrenheit ? fToC(value) : value;
@@ -104,20 +133,25 @@ class Growable {
   }
 }
 
-/** Splits a line into at most `count` cells without a regular expression. */
-function splitLine(line: string, cells: string[], count: number): number {
-  let start = 0;
+/** Start and end of the cells of one line inside the whole text (no substrings). */
+function cellBounds(text: string, lineStart: number, lineEnd: number, starts: Int32Array, ends: Int32Array): number {
+  let start = lineStart;
   let found = 0;
-  while (found < count) {
-    const comma = line.indexOf(',', start);
-    if (comma < 0) {
-      cells[found++] = line.slice(start);
-      break;
-    }
-    cells[found++] = line.slice(start, comma);
+  while (found < starts.length) {
+    let comma = text.indexOf(',', start);
+    if (comma < 0 || comma > lineEnd) comma = lineEnd;
+    starts[found] = start;
+    ends[found] = comma;
+    found++;
+    if (comma === lineEnd) break;
     start = comma + 1;
   }
   return found;
+}
+
+function cellAt(text: string, column: number, found: number, starts: Int32Array, ends: Int32Array, fahrenheit: boolean): number | undefined {
+  if (column < 0 || column >= found) return NaN;
+  return parseCellAt(text, starts[column], ends[column], fahrenheit);
 }
 
 export function parseLoggerCsv(text: string): ParsedLoggerFile {
@@ -134,25 +168,26 @@ export function parseLoggerCsv(text: string): ParsedLoggerFile {
     temperatureUnit: columns.fahrenheit ? 'F' : 'C',
     timestampsWithoutOffset: false,
   };
-  const cells: string[] = new Array(columns.count).fill('');
+  const starts = new Int32Array(columns.count);
+  const ends = new Int32Array(columns.count);
   const offsetFlag = { withoutOffset: false };
   let position = firstBreak < 0 ? text.length : firstBreak + 1;
   while (position < text.length) {
     let end = text.indexOf('\n', position);
     if (end < 0) end = text.length;
     const lineEnd = end > position && text.charCodeAt(end - 1) === 13 ? end - 1 : end;
-    const line = text.slice(position, lineEnd);
+    const lineStart = position;
     position = end + 1;
-    if (line.length === 0) continue;
+    if (lineEnd === lineStart) continue;
     report.rows++;
-    const found = splitLine(line, cells, columns.count);
-    const atMs = found > columns.timestamp ? parseTimestampMs(cells[columns.timestamp], offsetFlag) : NaN;
+    const found = cellBounds(text, lineStart, lineEnd, starts, ends);
+    const atMs = found > columns.timestamp ? parseTimestampAt(text, starts[columns.timestamp], ends[columns.timestamp], offsetFlag) : NaN;
     if (!Number.isFinite(atMs)) {
       report.rowsSkipped++;
       continue;
     }
-    const fresh = columns.freshFood >= 0 && found > columns.freshFood ? parseCell(cells[columns.freshFood], columns.fahrenheit) : NaN;
-    const freezer = columns.freezer >= 0 && found > columns.freezer ? parseCell(cells[columns.freezer], columns.fahrenheit) : NaN;
+    const fresh = cellAt(text, columns.freshFood, found, starts, ends, columns.fahrenheit);
+    const freezer = cellAt(text, columns.freezer, found, starts, ends, columns.fahrenheit);
     if (fresh === undefined || freezer === undefined) report.cellsUnreadable++;
     rows.push(atMs, fresh ?? NaN, freezer ?? NaN);
   }

@@ -4,11 +4,16 @@
  * reading so the alarm is as early as the grace period allows.
  */
 import { closeFinding, findOpen, openFinding } from './finding-book';
-import { alarmLimitOf, isTrusted, limitOf, MINUTE_MS, type EngineContext } from './context';
+import { alarmLimitOf, isTrusted, limitOf, type EngineContext } from './context';
 import { currentCauses } from './signature';
 import type { Severity } from '../../shared/domain';
 import type { ProbeState } from './state';
 import { overTempSummary } from './summaries';
+
+const MINUTE_MS = 60_000;
+
+// Bound once: tsx/esbuild would otherwise call a module getter for every reading.
+const hot = { alarmLimitOf, limitOf, isTrusted, findOpen };
 
 function graceMinutes(ctx: EngineContext, p: ProbeState): number {
   const { settings, state } = ctx;
@@ -23,27 +28,67 @@ function severityFor(p: ProbeState, valueC: number, minutesAbove4c: number, ctx:
   return valueC > 0 ? 'critical' : 'urgent';
 }
 
+/**
+ * Recovery needs the cycle-averaged level back near the limit too, not just the readings
+ * under the alarm line: a freezer hovering just under it has not recovered (hysteresis).
+ */
+function isLevelRecovered(ctx: EngineContext, p: ProbeState): boolean {
+  const levelC = p.level.levelC;
+  if (levelC === null) return true;
+  const { settings } = ctx;
+  const limitC = hot.limitOf(p.probe, settings);
+  return levelC <= limitC + (hot.alarmLimitOf(p.probe, settings) - limitC) / 2;
+}
+
+/**
+ * Time above the limit is credited only between two readings that both show it, and a gap
+ * counts for at most two reading intervals: sparse or missing readings never stretch a
+ * door opening into an alarm.
+ */
+function creditAbove(ctx: EngineContext, p: ProbeState, isAbove: boolean, atMs: number): void {
+  const t = p.overTemp;
+  if (isAbove && t.lastWasAbove && t.lastValidAtMs !== null) {
+    const capMinutes = 2 * Math.max(1, ctx.state.intervalMin ?? 1);
+    t.aboveMinutes += Math.min((atMs - t.lastValidAtMs) / MINUTE_MS, capMinutes);
+  }
+  t.lastValidAtMs = atMs;
+  t.lastWasAbove = isAbove;
+}
+
 export function judgeOverTemp(ctx: EngineContext, p: ProbeState, valueC: number, atMs: number): void {
   const t = p.overTemp;
-  const limitC = limitOf(p.probe, ctx.settings);
-  if (valueC > alarmLimitOf(p.probe, ctx.settings)) {
+  // The usual case: a cold reading with nothing pending.
+  if (t.findingId === null && t.aboveSinceMs === null && valueC <= hot.alarmLimitOf(p.probe, ctx.settings)) {
+    t.belowSinceMs ??= atMs;
+    t.lastValidAtMs = atMs;
+    t.lastWasAbove = false;
+    return;
+  }
+  const limitC = hot.limitOf(p.probe, ctx.settings);
+  const open = hot.findOpen(ctx.state, t.findingId);
+  const isAbove = valueC > hot.alarmLimitOf(p.probe, ctx.settings);
+  if (isAbove) {
     t.aboveSinceMs ??= atMs;
     t.belowSinceMs = null;
   } else {
     t.belowSinceMs ??= atMs;
-    if (atMs - t.belowSinceMs >= ctx.settings.overTempDipToleranceMinutes * MINUTE_MS) t.aboveSinceMs = null;
+    if (atMs - t.belowSinceMs >= ctx.settings.overTempDipToleranceMinutes * MINUTE_MS) {
+      t.aboveSinceMs = null;
+      t.aboveMinutes = 0;
+    }
   }
-  const open = findOpen(ctx.state, t.findingId);
+  creditAbove(ctx, p, isAbove, atMs);
   if (open) {
-    if (t.belowSinceMs !== null && atMs - t.belowSinceMs >= ctx.settings.recoveredHoldMinutes * MINUTE_MS) {
+    if (t.belowSinceMs !== null && atMs - t.belowSinceMs >= ctx.settings.recoveredHoldMinutes * MINUTE_MS && isLevelRecovered(ctx, p)) {
       closeFinding(ctx.state, open.id, t.belowSinceMs, ctx.events);
       t.findingId = null;
+      t.aboveMinutes = 0;
     }
     return;
   }
   if (t.findingId !== null) t.findingId = null;
-  if (t.aboveSinceMs === null || !isTrusted(p)) return;
-  const minutes = (atMs - t.aboveSinceMs) / MINUTE_MS;
+  if (!isAbove || t.aboveSinceMs === null || !hot.isTrusted(p)) return;
+  const minutes = t.aboveMinutes;
   if (minutes < graceMinutes(ctx, p)) return;
   const finding = openFinding(
     ctx.state,
@@ -54,7 +99,7 @@ export function judgeOverTemp(ctx: EngineContext, p: ProbeState, valueC: number,
       detectedAtMs: atMs,
       severity: 'urgent',
       probableCauses: currentCauses(ctx),
-      summary: overTempSummary(p.probe, valueC, limitC, minutes),
+      summary: overTempSummary(p.probe, valueC, limitC, (atMs - t.aboveSinceMs) / MINUTE_MS),
     },
     ctx.events,
   );
@@ -65,7 +110,7 @@ export function judgeOverTemp(ctx: EngineContext, p: ProbeState, valueC: number,
 
 /** Running figures of an open over-temperature finding, refreshed once per bucket. */
 export function overTempPatch(ctx: EngineContext, p: ProbeState, atMs: number) {
-  const finding = findOpen(ctx.state, p.overTemp.findingId);
+  const finding = hot.findOpen(ctx.state, p.overTemp.findingId);
   const valueC = p.validation.lastValidC;
   if (!finding || valueC === null) return null;
   const aboveSince = p.overTemp.aboveSinceMs ?? finding.startedAtMs;
@@ -73,7 +118,7 @@ export function overTempPatch(ctx: EngineContext, p: ProbeState, atMs: number) {
     finding,
     patch: {
       severity: severityFor(p, valueC, finding.minutesAbove4c, ctx),
-      summary: overTempSummary(p.probe, valueC, limitOf(p.probe, ctx.settings), (atMs - aboveSince) / MINUTE_MS),
+      summary: overTempSummary(p.probe, valueC, hot.limitOf(p.probe, ctx.settings), (atMs - aboveSince) / MINUTE_MS),
     },
   };
 }

@@ -16,10 +16,11 @@ function isSentinel(valueC: number, sentinelC: number, settings: DetectionSettin
 }
 
 function sentinelReason(valueC: number, settings: DetectionSettings): SensorFaultReason | null {
-  const [disconnectedC, powerOnC] = settings.sentinelValuesC;
-  if (disconnectedC !== undefined && isSentinel(valueC, disconnectedC, settings)) return 'disconnected';
-  if (powerOnC !== undefined && isSentinel(valueC, powerOnC, settings)) return 'power-on';
-  for (const other of settings.sentinelValuesC.slice(2)) if (isSentinel(valueC, other, settings)) return 'disconnected';
+  const sentinels = settings.sentinelValuesC;
+  for (let i = 0; i < sentinels.length; i++) {
+    // The first code means "disconnected", the second "power-on"; any further ones count as disconnected.
+    if (isSentinel(valueC, sentinels[i], settings)) return i === 1 ? 'power-on' : 'disconnected';
+  }
   return null;
 }
 

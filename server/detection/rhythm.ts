@@ -9,6 +9,8 @@ import { lambdaForGap } from './stats/ewma';
 import { median } from './stats/robust';
 
 const MINUTE_MS = 60_000;
+// Bound once: tsx/esbuild would otherwise call a module getter for every reading.
+const hot = { lambdaForGap, pushRing };
 const HOUR_MS = 60 * MINUTE_MS;
 const PERIOD_RING = 16;
 const DEFROST_RING = 12;
@@ -16,6 +18,21 @@ const MIN_CYCLE_MIN = 8;
 const MAX_CYCLE_MIN = 600;
 /** A defrost keeps the air up for more than a few minutes; a door opening recovers faster. */
 const DEFROST_MIN_MINUTES = 10;
+const NORMAL_DEFROSTS = 2;
+
+// Readings mostly come at one interval: the weight for the last gap is kept, not recomputed.
+let lastGapMs = -1;
+let lastTimeConstantMs = -1;
+let lastWeight = 0;
+
+function smoothingWeight(gapMs: number, timeConstantMs: number): number {
+  if (gapMs !== lastGapMs || timeConstantMs !== lastTimeConstantMs) {
+    lastGapMs = gapMs;
+    lastTimeConstantMs = timeConstantMs;
+    lastWeight = hot.lambdaForGap(gapMs, timeConstantMs);
+  }
+  return lastWeight;
+}
 
 /** Tracks crossings of the running mean; returns nothing, updates the ring of periods. */
 export function trackCycle(r: ProbeRhythm, valueC: number, atMs: number, gapMs: number, settings: DetectionSettings): void {
@@ -23,7 +40,7 @@ export function trackCycle(r: ProbeRhythm, valueC: number, atMs: number, gapMs: 
     r.smoothC = valueC;
     return;
   }
-  r.smoothC += lambdaForGap(gapMs, settings.cycleSmoothingMinutes * MINUTE_MS) * (valueC - r.smoothC);
+  r.smoothC += smoothingWeight(gapMs, settings.cycleSmoothingMinutes * MINUTE_MS) * (valueC - r.smoothC);
   const deviationC = valueC - r.smoothC;
   if (r.side <= 0 && deviationC > settings.cycleHysteresisC) {
     if (r.side < 0 && r.lastUpCrossingMs !== null) {
@@ -46,8 +63,9 @@ export function cyclePeriodMinutes(r: ProbeRhythm, intervalMin: number | null): 
 }
 
 /**
- * Watches the probe that carries the defrost (the freezer, or the fresh food of a
- * fresh-food-only unit) for brief rises above its level.
+ * Watches a probe for brief rises above its level (a door opening, a defrost). On the
+ * probe that carries the defrost (the freezer, or the fresh food of a fresh-food-only
+ * unit) the rises without a door opening are recorded as defrosts.
  */
 export function trackExcursion(
   state: EngineState,
@@ -56,6 +74,7 @@ export function trackExcursion(
   referenceC: number | null,
   atMs: number,
   settings: DetectionSettings,
+  recordsDefrost: boolean,
 ): void {
   if (r.excursionStartMs === null) {
     if (referenceC === null || valueC <= referenceC + settings.excursionRiseC) return;
@@ -63,8 +82,10 @@ export function trackExcursion(
     r.excursionReferenceC = referenceC;
     r.excursionPeakC = valueC - referenceC;
     r.excursionDoor = state.doorOpen;
+    r.transientInBucket = true;
     return;
   }
+  if (atMs - r.excursionStartMs <= transientLimitMinutes(state, settings) * MINUTE_MS) r.transientInBucket = true;
   r.excursionPeakC = Math.max(r.excursionPeakC, valueC - r.excursionReferenceC);
   r.excursionDoor ||= state.doorOpen;
   const durationMin = (atMs - r.excursionStartMs) / MINUTE_MS;
@@ -73,7 +94,7 @@ export function trackExcursion(
     return;
   }
   if (valueC >= r.excursionReferenceC + settings.excursionRiseC / 2) return;
-  if (!r.excursionDoor && durationMin >= DEFROST_MIN_MINUTES && durationMin <= settings.defrostMaxMinutes) {
+  if (recordsDefrost && !r.excursionDoor && durationMin >= DEFROST_MIN_MINUTES && durationMin <= settings.defrostMaxMinutes) {
     recordDefrost(state, { atMs: r.excursionStartMs, riseC: r.excursionPeakC, durationMin }, settings);
   }
   r.excursionStartMs = null;
@@ -90,6 +111,15 @@ function recordDefrost(state: EngineState, event: DefrostEvent, settings: Detect
   state.defrosts.push(event);
   if (state.defrosts.length > DEFROST_RING) state.defrosts.shift();
   state.defrostDurationMin = defrostRhythm(state.defrosts).durationMinutes;
+  // The normal size of a defrost rise is fixed from the first ones, before any fault can shrink it.
+  if (state.normalDefrostRiseC === null && state.defrosts.length >= NORMAL_DEFROSTS) state.normalDefrostRiseC = defrostRhythm(state.defrosts).riseC;
+}
+
+/** Longest excursion still treated as a brief transient: a little longer than the unit's own defrost. */
+export function transientLimitMinutes(state: EngineState, settings: DetectionSettings): number {
+  const learned = state.defrostDurationMin;
+  if (learned === null) return settings.defrostMaxMinutes;
+  return Math.min(settings.defrostMaxMinutes, Math.max(45, 1.5 * learned));
 }
 
 export interface DefrostRhythm {

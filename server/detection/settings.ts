@@ -39,6 +39,8 @@ export interface DetectionSettings {
   freshMinRiseC: number;
   freezerMinRiseC: number;
   sustainMinutes: number;
+  continuousRunSpikeRatio: number;
+  spikyRatio: number;
   slopeWindowMinutes: number;
   recoveringSlopeCPerHour: number;
   forecastWindowMinutes: number;
@@ -100,6 +102,8 @@ export const SETTING_DOCS: Record<keyof DetectionSettings, SettingDoc & { value:
   cusumDecisionSigma: { value: 8, unit: 'σ', reason: 'tabular CUSUM decision interval H, raised from the textbook 5σ for the same reason' },
   freshMinRiseC: { value: 1.5, unit: '°C', reason: 'a warming trend must lift the fresh-food level at least this far above its own normal (common practice)' },
   freezerMinRiseC: { value: 2, unit: '°C', reason: 'same for the freezer, which swings wider in normal use (common practice)' },
+  continuousRunSpikeRatio: { value: 0.6, unit: '×', reason: 'readings swinging less than this share of their usual rise above the quarter-hour mean: the compressor no longer cycles (it runs on); corroborates a smaller warming (common practice)' },
+  spikyRatio: { value: 1.5, unit: '×', reason: 'readings spiking this much more than usual: room air gets in (door seal); corroborates a smaller warming (common practice)' },
   sustainMinutes: { value: 45, unit: 'min', reason: 'the rise must last this long above the threshold before it is a trend' },
   slopeWindowMinutes: { value: 120, unit: 'min', reason: 'window of the robust (Theil–Sen) slope that tells a recovering grocery load from a failure' },
   recoveringSlopeCPerHour: { value: -0.3, unit: '°C/h', reason: 'a level falling faster than this is recovering by itself and is not a trend' },

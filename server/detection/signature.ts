@@ -2,22 +2,31 @@
 import type { Probe } from '../../shared/domain';
 import { HOUR_MS, isTrusted, probeState, type EngineContext } from './context';
 import { diagnose, type ProbeSignature, type Signature } from './diagnosis';
-import { residualC, robustSlopeCPerHour } from './level';
+import { recentRiseC, recentSlopeCPerHour, residualC } from './level';
 import { defrostRhythm } from './rhythm';
 import type { ProbableCause } from './types';
+
+const RECENT_SLOPE_MINUTES = 120;
+
+function hoursSince(fromMs: number | null, nowMs: number): number | null {
+  return fromMs === null ? null : (nowMs - fromMs) / HOUR_MS;
+}
 
 function probeSignature(ctx: EngineContext, probe: Probe): ProbeSignature | null {
   const p = probeState(ctx.state, probe);
   if (!p || !isTrusted(p) || p.level.levelC === null) return null;
-  const rise = residualC(p.level);
-  if (rise === null) return null;
+  const rise = recentRiseC(p.level);
+  const levelRise = residualC(p.level);
+  if (rise === null || levelRise === null) return null;
   const nowMs = ctx.state.lastAtMs ?? 0;
-  const onset = p.trend.cusumOnsetMs;
   const normalSpike = p.level.normalSpikeC;
   return {
     riseC: rise,
-    slopeCPerHour: robustSlopeCPerHour(p.level, ctx.settings.slopeWindowMinutes),
-    hoursRising: onset !== null ? (nowMs - onset) / HOUR_MS : null,
+    levelRiseC: levelRise,
+    slopeCPerHour: recentSlopeCPerHour(p.level, RECENT_SLOPE_MINUTES),
+    hoursRising: hoursSince(p.trend.cusumOnsetMs, nowMs),
+    hoursColder: hoursSince(p.trend.coldSinceMs, nowMs),
+    coolingHours: p.trend.coolingHours,
     spikeRatio: normalSpike !== null && p.level.spikeC !== null ? p.level.spikeC / Math.max(0.2, normalSpike) : null,
     levelC: p.level.levelC,
   };
@@ -31,12 +40,20 @@ function defrostOverdueRatio(ctx: EngineContext): number | null {
   return (nowMs - rhythm.lastAtMs) / HOUR_MS / rhythm.intervalHours;
 }
 
+/** The last defrost rise against the unit's normal one (a dying heater makes them shrink). */
+function lastDefrostRiseRatio(ctx: EngineContext): number | null {
+  const { defrosts, normalDefrostRiseC } = ctx.state;
+  if (normalDefrostRiseC === null || defrosts.length === 0) return null;
+  return defrosts[defrosts.length - 1].riseC / normalDefrostRiseC;
+}
+
 export function currentSignature(ctx: EngineContext): Signature {
   return {
     style: ctx.state.style,
     freshFood: probeSignature(ctx, 'fresh_food'),
     freezer: probeSignature(ctx, 'freezer'),
     defrostOverdueRatio: defrostOverdueRatio(ctx),
+    lastDefrostRiseRatio: lastDefrostRiseRatio(ctx),
     noCooling: ctx.state.noCoolingFindingId !== null,
   };
 }

@@ -35,6 +35,9 @@ export interface ProbeLevel {
   bucketMeansC: number[];
   /** Bucket max minus bucket mean: how spiky the probe is (door openings, infiltration). */
   spikeC: number | null;
+  /** Every bucket mean of the last hours, transients included: the diagnosis sees the raw shape. */
+  recentMeansC: number[];
+  recentTimesMs: number[];
   learnSpikesC: number[];
   normalSpikeC: number | null;
   levelC: number | null;
@@ -51,14 +54,22 @@ export interface ProbeTrend {
   risingSinceMs: number | null;
   recoveredSinceMs: number | null;
   findingId: string | null;
-  /** Time the residual first passed the rise threshold in the current episode. */
-  firstRiseAtMs: number | null;
   peakResidualC: number;
+  /** Since when the level has sat well below the baseline (a colder compartment is a signature too). */
+  coldSinceMs: number | null;
+  /** When the level first slipped 1 °C below the baseline in the current cold spell. */
+  coolingFromMs: number | null;
+  /** Hours the cold spell took from −1 °C to the cold threshold (fast: damper; slow: ice). */
+  coolingHours: number | null;
 }
 
 export interface ProbeOverTemp {
   aboveSinceMs: number | null;
   belowSinceMs: number | null;
+  /** Minutes of the current spell that readings actually showed above the limit. */
+  aboveMinutes: number;
+  lastValidAtMs: number | null;
+  lastWasAbove: boolean;
   findingId: string | null;
 }
 
@@ -72,6 +83,10 @@ export interface ProbeRhythm {
   excursionPeakC: number;
   excursionReferenceC: number;
   excursionDoor: boolean;
+  /** A short excursion (door, defrost) touched the current bucket: keep it out of the level. */
+  transientInBucket: boolean;
+  /** Consecutive buckets kept out; past the longest defrost they count again. */
+  skippedBuckets: number;
 }
 
 export interface ProbeState {
@@ -84,6 +99,7 @@ export interface ProbeState {
 }
 
 export interface DefrostEvent {
+  /** Start of the rise. */
   atMs: number;
   riseC: number;
   durationMin: number;
@@ -101,6 +117,8 @@ export interface EngineState {
   defrosts: DefrostEvent[];
   /** Median duration of the recorded defrost rises, kept up to date for the hot path. */
   defrostDurationMin: number | null;
+  /** Median rise of the defrosts seen while the unit was learning its normal. */
+  normalDefrostRiseC: number | null;
   /** Running estimate of the reading interval (minutes). */
   intervalMin: number | null;
   doorOpen: boolean;
@@ -142,6 +160,8 @@ function newProbe(probe: Probe): ProbeState {
       bucketMaxC: null,
       bucketMeansC: [],
       spikeC: null,
+      recentMeansC: [],
+      recentTimesMs: [],
       learnSpikesC: [],
       normalSpikeC: null,
       levelC: null,
@@ -157,10 +177,12 @@ function newProbe(probe: Probe): ProbeState {
       risingSinceMs: null,
       recoveredSinceMs: null,
       findingId: null,
-      firstRiseAtMs: null,
       peakResidualC: 0,
+      coldSinceMs: null,
+      coolingFromMs: null,
+      coolingHours: null,
     },
-    overTemp: { aboveSinceMs: null, belowSinceMs: null, findingId: null },
+    overTemp: { aboveSinceMs: null, belowSinceMs: null, aboveMinutes: 0, lastValidAtMs: null, lastWasAbove: false, findingId: null },
     rhythm: {
       smoothC: null,
       side: 0,
@@ -170,6 +192,8 @@ function newProbe(probe: Probe): ProbeState {
       excursionPeakC: 0,
       excursionReferenceC: 0,
       excursionDoor: false,
+      transientInBucket: false,
+      skippedBuckets: 0,
     },
   };
 }
@@ -186,6 +210,7 @@ export function newEngineState(style: ApplianceStyle, probes: readonly Probe[]):
     probes: probes.map(newProbe),
     defrosts: [],
     defrostDurationMin: null,
+    normalDefrostRiseC: null,
     intervalMin: null,
     doorOpen: false,
     doorFlagsSeen: false,

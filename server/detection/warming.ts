@@ -11,17 +11,37 @@
  */
 import type { Probe } from '../../shared/domain';
 import { closeFinding, findOpen, openFinding } from './finding-book';
-import { isTrusted, limitOf, MINUTE_MS, minRiseOf, type EngineContext } from './context';
+import { isTrusted, limitOf, minRiseOf, type EngineContext } from './context';
 import { forecastCrossingMs, residualC, robustSlopeCPerHour } from './level';
 import { currentCauses } from './signature';
 import type { ProbeState } from './state';
 import { cusumStep } from './stats/cusum';
 import { noCoolingSummary, warmingSummary } from './summaries';
 
+const MINUTE_MS = 60_000;
+
 const CUSUM_CAP_FACTOR = 4;
 
+const SPREAD_MULTIPLE = 3;
+const CORROBORATED_SHARE = 0.6;
+
+/**
+ * How far above its baseline a level must sit. A rhythm that changed along with it (the
+ * compressor no longer cycling, readings turned spiky, defrost rises fading) corroborates a
+ * smaller rise.
+ */
 function riseThresholdC(ctx: EngineContext, p: ProbeState): number {
-  return Math.max(minRiseOf(p.probe, ctx.settings), 4 * (p.level.spreadC ?? 0));
+  const threshold = Math.max(minRiseOf(p.probe, ctx.settings), SPREAD_MULTIPLE * (p.level.spreadC ?? 0));
+  return isRhythmChanged(ctx, p) ? threshold * CORROBORATED_SHARE : threshold;
+}
+
+function isRhythmChanged(ctx: EngineContext, p: ProbeState): boolean {
+  const { spikeC, normalSpikeC } = p.level;
+  // Missing or coded readings thin the buckets out and fake a calmer or spikier probe.
+  if (p.validation.faultReason !== null) return false;
+  if (spikeC === null || normalSpikeC === null || normalSpikeC < ctx.settings.cycleHysteresisC) return false;
+  const ratio = spikeC / normalSpikeC;
+  return ratio < ctx.settings.continuousRunSpikeRatio || ratio > ctx.settings.spikyRatio;
 }
 
 function advanceCusum(ctx: EngineContext, p: ProbeState, residual: number, bucketEndMs: number): boolean {
@@ -35,6 +55,23 @@ function advanceCusum(ctx: EngineContext, p: ProbeState, residual: number, bucke
   return signalled;
 }
 
+const COLD_START_C = 1;
+
+/** A compartment running colder than its normal is part of the signature (a damper, ice, a coil). */
+function trackColdSpell(t: ProbeState['trend'], residual: number, threshold: number, bucketEndMs: number): void {
+  if (residual > -COLD_START_C) {
+    t.coolingFromMs = null;
+    t.coldSinceMs = null;
+    t.coolingHours = null;
+    return;
+  }
+  t.coolingFromMs ??= bucketEndMs;
+  if (residual <= -threshold && t.coldSinceMs === null) {
+    t.coldSinceMs = bucketEndMs;
+    t.coolingHours = (bucketEndMs - t.coolingFromMs) / (60 * MINUTE_MS);
+  }
+}
+
 export function judgeWarming(ctx: EngineContext, p: ProbeState, bucketEndMs: number, atMs: number): void {
   const residual = residualC(p.level);
   if (residual === null || p.level.spreadC === null) return;
@@ -43,13 +80,15 @@ export function judgeWarming(ctx: EngineContext, p: ProbeState, bucketEndMs: num
   const threshold = riseThresholdC(ctx, p);
   if (residual >= threshold) t.risingSinceMs ??= bucketEndMs;
   else t.risingSinceMs = null;
+  trackColdSpell(t, residual, threshold, bucketEndMs);
   t.peakResidualC = Math.max(t.peakResidualC, residual);
   if (findOpen(ctx.state, t.findingId)) {
     judgeWarmingRecovery(ctx, p, residual, bucketEndMs);
     return;
   }
   t.findingId = null;
-  if (!signalled || t.risingSinceMs === null || !isTrusted(p)) return;
+  // A probe with an open sensor fault never starts a repair finding by itself.
+  if (!signalled || t.risingSinceMs === null || p.validation.faultReason !== null) return;
   if (bucketEndMs - t.risingSinceMs < ctx.settings.sustainMinutes * MINUTE_MS) return;
   const slope = robustSlopeCPerHour(p.level, ctx.settings.slopeWindowMinutes);
   if (slope !== null && slope <= ctx.settings.recoveringSlopeCPerHour) return;

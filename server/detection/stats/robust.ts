@@ -17,8 +17,16 @@ export function robustSigma(values: readonly number[]): number {
 /** Median of a small window without touching the caller's array (the level series). */
 export function medianOfWindow(values: readonly number[], scratch: number[]): number {
   scratch.length = 0;
-  for (const value of values) scratch.push(value);
-  scratch.sort((a, b) => a - b);
+  // Insertion sort: the window holds a handful of values.
+  for (const value of values) {
+    let i = scratch.length;
+    scratch.push(value);
+    while (i > 0 && scratch[i - 1] > value) {
+      scratch[i] = scratch[i - 1];
+      i--;
+    }
+    scratch[i] = value;
+  }
   const middle = scratch.length >> 1;
   return scratch.length % 2 ? scratch[middle] : (scratch[middle - 1] + scratch[middle]) / 2;
 }

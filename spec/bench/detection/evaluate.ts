@@ -27,7 +27,7 @@ export interface DetectorOutcome {
 
 export interface ScenarioOutcome {
   scenario: Scenario;
-  /** Ground truth: the fault moved a compartment at least 2 °C off its own normal. */
+  /** Ground truth: the fault lifted a compartment's 3-hour median at least 2 °C above its day before. */
   visible: boolean;
   foodAtRiskAtMs: number | null;
   engine: DetectorOutcome;
@@ -38,7 +38,9 @@ export interface ScenarioOutcome {
 }
 
 const VISIBLE_RISE_C = 2;
+const VISIBLE_WINDOW_MS = 3 * HOUR_MS;
 const FOOD_AT_RISK_MINUTES = 120;
+const SPELL_GAP_MS = 15 * 60_000;
 
 function valueOf(sample: SimSample, probe: Probe): number | null {
   const value = probe === 'fresh_food' ? sample.freshFoodC : sample.freezerC;
@@ -51,16 +53,17 @@ function medianOf(values: number[]): number | null {
   return sorted[sorted.length >> 1];
 }
 
-function hourlyMedians(trace: SimSample[], probe: Probe, fromMs: number): number[] {
-  const byHour = new Map<number, number[]>();
+/** Medians of consecutive 3-hour windows: long enough that a defrost or a door opening does not count. */
+function windowMedians(trace: SimSample[], probe: Probe, fromMs: number): number[] {
+  const byWindow = new Map<number, number[]>();
   for (const s of trace) {
     const v = valueOf(s, probe);
     if (s.atMs < fromMs || v === null) continue;
-    const hour = Math.floor((s.atMs - fromMs) / HOUR_MS);
-    if (!byHour.has(hour)) byHour.set(hour, []);
-    byHour.get(hour)!.push(v);
+    const window = Math.floor((s.atMs - fromMs) / VISIBLE_WINDOW_MS);
+    if (!byWindow.has(window)) byWindow.set(window, []);
+    byWindow.get(window)!.push(v);
   }
-  return [...byHour.values()].map((vs) => medianOf(vs) as number);
+  return [...byWindow.values()].map((vs) => medianOf(vs) as number);
 }
 
 function isVisible(scenario: Scenario, trace: SimSample[]): boolean {
@@ -69,22 +72,32 @@ function isVisible(scenario: Scenario, trace: SimSample[]): boolean {
   return probesOf(scenario.style).some((probe) => {
     const before = medianOf(trace.filter((s) => s.atMs < onset && s.atMs >= onset - 24 * HOUR_MS).map((s) => valueOf(s, probe)).filter((v): v is number => v !== null));
     if (before === null) return false;
-    return hourlyMedians(trace, probe, onset).some((m) => m >= before + VISIBLE_RISE_C);
+    return windowMedians(trace, probe, onset).some((m) => m >= before + VISIBLE_RISE_C);
   });
 }
 
-/** When the air of the compartment holding perishables has been above 40 °F for 2 hours since onset. */
+/**
+ * When the food is at risk: the air of the compartment holding perishables has stayed above
+ * 40 °F for 2 hours in one spell since the onset (USDA FSIS 2-hour rule). A spell ends once
+ * the air has been back at or below the limit for 15 minutes, so door openings over days do
+ * not add up.
+ */
 export function foodAtRiskAt(scenario: Scenario, trace: SimSample[]): number | null {
   if (scenario.onsetMs === null) return null;
   const probe: Probe = probesOf(scenario.style).includes('fresh_food') ? 'fresh_food' : 'freezer';
-  let minutes = 0;
-  let previous: SimSample | null = null;
+  let spellStartMs: number | null = null;
+  let belowSinceMs: number | null = null;
   for (const s of trace) {
-    if (s.atMs < scenario.onsetMs) continue;
     const v = valueOf(s, probe);
-    if (previous && v !== null && v > FRESH_FOOD_LIMIT_C) minutes += (s.atMs - previous.atMs) / 60_000;
-    if (minutes >= FOOD_AT_RISK_MINUTES) return s.atMs;
-    previous = s;
+    if (s.atMs < scenario.onsetMs || v === null) continue;
+    if (v > FRESH_FOOD_LIMIT_C) {
+      spellStartMs ??= s.atMs;
+      belowSinceMs = null;
+      if (s.atMs - spellStartMs >= FOOD_AT_RISK_MINUTES * 60_000) return s.atMs;
+    } else {
+      belowSinceMs ??= s.atMs;
+      if (s.atMs - belowSinceMs >= SPELL_GAP_MS) spellStartMs = null;
+    }
   }
   return null;
 }
@@ -100,6 +113,8 @@ function runEngine(scenario: Scenario, trace: SimSample[]): { outcome: DetectorO
     }
   }
   for (const f of engine.openFindings()) final.set(f.id, f);
+  // A sensor that stops sending altogether is seen as silent, not as a finding.
+  const silentAtEnd = engine.health(scenario.startMs + scenario.durationMs) === 'silent';
   const onset = scenario.onsetMs ?? Infinity;
   const repairs = [...opened.values()].filter((o) => isRepairFinding(o.finding));
   const after = repairs.filter((o) => o.finding.detectedAtMs >= onset).sort((a, b) => a.finding.detectedAtMs - b.finding.detectedAtMs);
@@ -108,7 +123,7 @@ function runEngine(scenario: Scenario, trace: SimSample[]): { outcome: DetectorO
     outcome: {
       first: first ? { detectedAtMs: first.finding.detectedAtMs, topCauseAtOpen: first.topAtOpen, topCauseFinal: final.get(first.finding.id)?.probableCauses[0]?.code ?? null } : null,
       falseRepair: repairs.filter((o) => o.finding.detectedAtMs < onset).length,
-      sensorFaultFound: [...opened.values()].some((o) => o.finding.kind === 'sensor-fault' && o.finding.detectedAtMs >= onset),
+      sensorFaultFound: silentAtEnd || [...opened.values()].some((o) => o.finding.kind === 'sensor-fault' && o.finding.detectedAtMs >= onset),
     },
     findings: [...final.values()],
   };

@@ -11,6 +11,8 @@ export interface FaultRow {
   visible: number;
   detected: number;
   detectedVisible: number;
+  /** Faults that put food at risk (2 h above 40 °F in one spell), and those detected before that. */
+  foodAtRisk: number;
   beforeFoodAtRisk: number;
   medianHours: number | null;
   top1AtOpen: number;
@@ -34,7 +36,8 @@ function median(values: number[]): number | null {
 
 function row(fault: string, cases: FaultCase[]): FaultRow {
   const detected = cases.filter((c) => c.outcome.first !== null);
-  const before = detected.filter((c) => c.foodAtRiskAtMs === null || c.outcome.first!.detectedAtMs < c.foodAtRiskAtMs);
+  const atRisk = cases.filter((c) => c.foodAtRiskAtMs !== null);
+  const before = atRisk.filter((c) => c.outcome.first !== null && c.outcome.first.detectedAtMs < (c.foodAtRiskAtMs as number));
   const code = (c: FaultCase) => c.fault;
   return {
     fault,
@@ -42,6 +45,7 @@ function row(fault: string, cases: FaultCase[]): FaultRow {
     visible: cases.filter((c) => c.visible).length,
     detected: detected.length,
     detectedVisible: detected.filter((c) => c.visible).length,
+    foodAtRisk: atRisk.length,
     beforeFoodAtRisk: before.length,
     medianHours: median(detected.map((c) => (c.outcome.first!.detectedAtMs - c.onsetMs) / HOUR_MS)),
     top1AtOpen: detected.filter((c) => c.outcome.first!.topCauseAtOpen === code(c)).length,
@@ -125,10 +129,10 @@ function hours(value: number | null): string {
 }
 
 function faultTable(title: string, f: DetectorFigures, withCauses: boolean): string[] {
-  const header = ['fault', 'n', 'visible', 'detected', 'det. of visible', 'before food at risk', 'median onset→detection', ...(withCauses ? ['top-1 at dispatch', 'top-1 later'] : [])];
+  const header = ['fault', 'n', 'visible', 'detected', 'det. of visible', 'food at risk', 'detected before', 'median onset→detection', ...(withCauses ? ['top-1 at dispatch', 'top-1 later'] : [])];
   const lines = [title, header.join(' | ')];
   for (const r of [...f.rows, f.total]) {
-    const cells = [r.fault, `${r.count}`, `${r.visible}`, pct(r.detected, r.count), pct(r.detectedVisible, r.visible), pct(r.beforeFoodAtRisk, r.count), hours(r.medianHours)];
+    const cells = [r.fault, `${r.count}`, `${r.visible}`, pct(r.detected, r.count), pct(r.detectedVisible, r.visible), `${r.foodAtRisk}`, pct(r.beforeFoodAtRisk, r.foodAtRisk), hours(r.medianHours)];
     if (withCauses) cells.push(pct(r.top1AtOpen, r.detected), pct(r.top1Final, r.detected));
     lines.push(cells.join(' | '));
   }
@@ -144,7 +148,7 @@ export function formatReport(engine: DetectorFigures, thermometer: DetectorFigur
     ['measure', 'engine', 'thermometer', 'target'].join(' | '),
     ['faults detected', pct(engine.total.detected, engine.total.count), pct(thermometer.total.detected, thermometer.total.count), '≥ 95 %'].join(' | '),
     ['faults detected (visible ones)', pct(engine.total.detectedVisible, engine.total.visible), pct(thermometer.total.detectedVisible, thermometer.total.visible), ''].join(' | '),
-    ['detected before food at risk', pct(engine.total.beforeFoodAtRisk, engine.total.count), pct(thermometer.total.beforeFoodAtRisk, thermometer.total.count), '≥ 80 %'].join(' | '),
+    [`detected before food at risk (of the ${engine.total.foodAtRisk} faults that put food at risk)`, pct(engine.total.beforeFoodAtRisk, engine.total.foodAtRisk), pct(thermometer.total.beforeFoodAtRisk, thermometer.total.foodAtRisk), '≥ 80 %'].join(' | '),
     [`false repair findings per 100 appliance-days (healthy, ${engine.healthyDays.toFixed(0)} days)`, engine.falseRepairPer100Days.toFixed(2), thermometer.falseRepairPer100Days.toFixed(2), '≤ 0.5'].join(' | '),
     ['false repair findings per 100 appliance-days (fault traces before onset)', engine.falseBeforeOnsetPer100Days.toFixed(2), thermometer.falseBeforeOnsetPer100Days.toFixed(2), ''].join(' | '),
     ['top-1 cause accuracy at dispatch', pct(engine.total.top1AtOpen, engine.total.detected), '–', '≥ 70 %'].join(' | '),
