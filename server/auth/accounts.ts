@@ -66,7 +66,8 @@ export interface Accounts {
 export const DEFAULT_SESSION_IDLE_MS = 8 * 60 * 60_000;
 export const DEFAULT_SESSION_ABSOLUTE_MS = 7 * 24 * 60 * 60_000;
 
-function buildServices(dataSource: DataSource, config: AppConfig, logger: Logger, options: AccountsOptions, clock: Clock): AccountServices {
+/** The account services alone (specs call them without HTTP to check the rules behind the routes). */
+export function buildAccountServices(dataSource: DataSource, config: AppConfig, logger: Logger, options: AccountsOptions = {}, clock: Clock = systemClock): AccountServices {
   const scope = new Scope(dataSource);
   const audit = new AuditService(dataSource, clock);
   const mail = new MailService(options.mailer ?? unconfiguredMailer, config.publicUrl);
@@ -94,7 +95,7 @@ function absoluteLifetime(clock: Clock, lifetimeMs: number, csrf: Csrf): Request
 export function createAccounts(deps: { config: AppConfig; dataSource: DataSource; logger: Logger; options?: AccountsOptions }): Accounts {
   const options = deps.options ?? {};
   const clock = options.clock ?? systemClock;
-  const services = buildServices(deps.dataSource, deps.config, deps.logger, options, clock);
+  const services = buildAccountServices(deps.dataSource, deps.config, deps.logger, options, clock);
   const secret = options.sessionSecret ?? randomBytes(32).toString('base64url');
   const secureCookies = deps.config.publicUrl.startsWith('https:');
   const passport = createPassport({ verifyCredentials: (email, password) => services.passwords.verifyCredentials(email, password), actorById: (id) => services.users.actorById(id) });
