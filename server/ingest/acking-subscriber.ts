@@ -55,6 +55,7 @@ export class AckingSubscriber {
   private connection = 0;
   private unacked = 0;
   private resumeReading: (() => void) | null = null;
+  private subscribing: Promise<void> = Promise.resolve();
 
   constructor(private readonly options: AckingSubscriberOptions) {}
 
@@ -77,14 +78,15 @@ export class AckingSubscriber {
       keepalive: 30,
       reconnectPeriod: options.reconnectPeriodMs ?? 1000,
       connectTimeout: 10_000,
-      resubscribe: true,
+      resubscribe: false,
     });
     this.client = client;
     client.handleMessage = (packet, callback) => this.handle(packet, callback);
-    client.on('connect', () => void this.subscribe());
+    client.on('connect', () => (this.subscribing = this.subscribe()));
     client.on('close', () => this.connectionLost());
     client.on('error', (error) => options.onError?.(error));
     await new Promise<void>((resolve) => client.once('connect', () => resolve()));
+    await this.subscribing;
   }
 
   async stop(): Promise<void> {
@@ -94,14 +96,23 @@ export class AckingSubscriber {
     if (client) await client.endAsync(true);
   }
 
+  /**
+   * One SUBSCRIBE per filter, on every connect (so MQTT.js' own resubscribe is off). One
+   * packet with many filters makes aedes 1.2 store the whole list once per filter, and
+   * with aedes-persistence-redis those stores wait on one another and the SUBACK never
+   * comes; one filter per packet avoids it.
+   */
   private async subscribe(): Promise<void> {
-    try {
-      const granted = await this.client?.subscribeAsync(this.options.filters, { qos: 1 });
-      const refused = granted?.filter((grant) => grant.qos === 128) ?? [];
-      if (refused.length) this.options.onError?.(new Error(`subscription refused: ${refused.map((grant) => grant.topic).join(', ')}`));
-    } catch (error) {
-      this.options.onError?.(error as Error);
+    const refused: string[] = [];
+    for (const filter of this.options.filters) {
+      try {
+        await this.client?.subscribeAsync(filter, { qos: 1 });
+      } catch (error) {
+        if (!this.client?.connected) return;
+        refused.push(`${filter} (${(error as Error).message})`);
+      }
     }
+    if (refused.length) this.options.onError?.(new Error(`subscription refused: ${refused.join(', ')}`));
   }
 
   private connectionLost(): void {
