@@ -1,5 +1,6 @@
 import { Router, type Request, type RequestHandler } from 'express';
 import { z } from 'zod';
+import { RouteGroup } from '../auth/route-table';
 import type { HistoryService } from '../telemetry/history-service';
 import type { RejectsService } from '../telemetry/rejects-service';
 
@@ -48,4 +49,17 @@ export function telemetryRouter<Actor>(deps: TelemetryRouteDeps<Actor>): Router 
     res.json(await deps.rejects.sensorRejects(deps.actorOf(req), id));
   });
   return router;
+}
+
+/**
+ * The sensor-rejects route declared in the route table, like historyRoutes in
+ * routes/appliances.ts: the telemetry router answers `/sensors/:id/rejects` under `/api`,
+ * managers only, and RejectsService checks the organization through the appliance.
+ */
+export function sensorRejectsRoutes(telemetry: RequestHandler): RouteGroup {
+  return new RouteGroup('/api').get(
+    '/sensors/:id/rejects',
+    { access: ['manager'], scope: 'organization', summary: "a sensor's rejected messages: counts per reason and the latest samples" },
+    telemetry,
+  );
 }
