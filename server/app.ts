@@ -8,9 +8,13 @@ import type { Logger } from 'pino';
 import type { DataSource } from 'typeorm';
 import { createAccounts, type AccountsOptions } from './auth/accounts';
 import { RouteGroup, RouteTable } from './auth/route-table';
+import { systemClock } from './auth/clock';
 import type { AppConfig } from './config';
+import { EventBus } from './events/bus';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { healthRouter } from './routes/health';
+import { createInventory } from './routes/inventory';
+import { webAppRoutes, type WebAppRouteDeps } from './routes/web-app';
 import { HealthService, databaseProbe, type ComponentProbe } from './services/health';
 
 /** What the app is built from; specs pass their own (a throwaway database, a fake broker probe). */
@@ -22,6 +26,10 @@ export interface AppDeps {
   version: string;
   /** Sign-in, sessions and mail; specs that never sign in may leave it out. */
   accounts?: AccountsOptions;
+  /** The in-process event bus the live feed forwards; without one the feed stays quiet. */
+  bus?: EventBus;
+  /** Service history, repair rule and heartbeat of the web app's pages; defaults otherwise. */
+  webApp?: Pick<WebAppRouteDeps, 'serviceHistory' | 'repairRule' | 'heartbeatMs'>;
 }
 
 function securityHeaders(config: AppConfig) {
@@ -99,6 +107,18 @@ export function createApp(deps: AppDeps): Express {
   const accounts = createAccounts({ config, dataSource: deps.dataSource, logger, options: deps.accounts });
   app.use('/api', ...accounts.middleware);
   routes.mount(app, ...accounts.routes);
+  routes.mount(app, ...createInventory({ dataSource: deps.dataSource, logger }).routes);
+
+  const web = webAppRoutes({
+    dataSource: deps.dataSource,
+    bus: deps.bus ?? new EventBus(logger),
+    scope: accounts.services.scope,
+    clock: deps.accounts?.clock ?? systemClock,
+    logger,
+    actorById: (id) => accounts.services.users.actorById(id),
+    ...deps.webApp,
+  });
+  routes.mount(app, ...web.groups);
 
   app.use('/api', apiNotFound);
   app.use(clientApp(config.clientDir));

@@ -23,13 +23,14 @@ async function main(): Promise<void> {
   logger.info(mail.description);
   const devInbox = mail.inboxOverHttp ? mail.inbox : null;
   const accounts = { mailer: mail.mailer, devInbox, sessionSecret: loadSessionSecret(process.env, config.dataDir) };
-  const app = createApp({ config, dataSource: AppDataSource, logger, brokerProbe: brokerProbe(config.mqttUrl), version: packageVersion(), accounts });
+  // The monitor publishes on the bus; the web app's live feed forwards it.
+  const bus = new EventBus(logger);
+  const app = createApp({ config, dataSource: AppDataSource, logger, brokerProbe: brokerProbe(config.mqttUrl), version: packageVersion(), accounts, bus });
   const server = app.listen(config.port, config.host, () => {
     logger.info(`listening on ${config.publicUrl}`);
     if (devInbox) logger.info(`dev inbox (e-mail sent by the server) at ${config.publicUrl}/dev/inbox`);
   });
   // Live detection: every committed batch goes through the monitor, which publishes on the bus.
-  const bus = new EventBus(logger);
   const monitor = startMonitor({ dataSource: AppDataSource, bus, logger, clock: systemClock });
   const ingest = await startIngestInServer(config, logger, monitor.service.hook);
 

@@ -66,6 +66,11 @@ function casesFor(f: Fixtures, messageId: string): Record<string, MatrixCase> {
     'GET /dev/inbox': { ok: 200 },
     'GET /dev/inbox/:messageId': message,
     'GET /dev/inbox/:messageId/html': message,
+    'GET /api/fleet': { ok: 200 },
+    'GET /api/appliances/:id': { params: { id: f.org1.applianceA }, target: { organizationId: f.org1.id, unitId: f.org1.unitA }, ok: 200 },
+    'GET /api/appliances/:id/history': { params: { id: f.org1.applianceA }, target: { organizationId: f.org1.id, unitId: f.org1.unitA }, ok: 200 },
+    // Without Accept: text/event-stream the live feed answers 406 instead of streaming.
+    'GET /api/events': { ok: 406 },
   };
 }
 
