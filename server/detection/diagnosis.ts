@@ -50,13 +50,15 @@ export interface Signature {
 type Scores = Partial<Record<CauseCode, number>>;
 
 /** °C per hour: a freezer climbing faster than this has lost its cooling altogether. */
-const FAST_CLIMB_C_PER_H = 2.5;
+const FAST_CLIMB_C_PER_H = 2;
 /** Below this the compressor is climbing slowly, as it does against a starved condenser. */
 const SLOW_CLIMB_C_PER_H = 0.7;
 /** Share of the freezer's climb the fresh food follows when no fan moves air. */
 const FOLLOW_SHARE = 0.15;
 const CONTINUOUS_RUN_SPIKE_RATIO = DEFAULT_SETTINGS.continuousRunSpikeRatio;
 const SPIKY_RATIO = DEFAULT_SETTINGS.spikyRatio;
+/** A fresh-food shift this size (°C) in either direction tells a fan stop from a starved condenser. */
+const FRESH_SHIFT_C = 0.3;
 
 function add(scores: Scores, code: CauseCode, weight: number): void {
   scores[code] = (scores[code] ?? 0) + weight;
@@ -72,12 +74,12 @@ const ABRUPT_COOLING_HOURS = 8;
 function scoreFastClimb(s: Signature, scores: Scores): void {
   const z = s.freezer;
   const f = s.freshFood;
-  if (z && (z.riseC >= HEADING_TO_ROOM_C || slope(z) >= FAST_CLIMB_C_PER_H) && z.riseC >= 3) {
+  if (z && z.riseC >= 3 && slope(z) >= FAST_CLIMB_C_PER_H) {
     if (!f) {
       add(scores, 'compressor-start', 3);
       add(scores, 'power-loss', 1.5);
     } else if (f.riseC < FOLLOW_SHARE * z.riseC) {
-      // The fan still runs and carries the freezer's cold into the fresh food.
+      // While the freezer climbs, a fan that still runs carries its cold into the fresh food.
       add(scores, 'compressor-start', 4);
       add(scores, 'power-loss', 1);
     } else {
@@ -86,43 +88,60 @@ function scoreFastClimb(s: Signature, scores: Scores): void {
     }
     return;
   }
-  if (!z && f && slope(f) >= 1 && f.riseC >= 2) {
+  if (z && z.riseC >= 3 && (z.riseC >= HEADING_TO_ROOM_C || z.levelC > -3)) {
+    // Late in the climb both look alike: only the remembered early shape tells them apart.
+    add(scores, 'compressor-start', 1.5);
+    add(scores, 'power-loss', 1.5);
+    return;
+  }
+  if (!z && f && slope(f) >= 0.5 && f.riseC >= 1.5) {
     add(scores, 'compressor-start', 3);
     add(scores, 'power-loss', 1.5);
   }
+  if (s.style === 'chest-freezer' && z && z.riseC >= 1.5 && slope(z) >= 0.5) add(scores, 'compressor-start', 3);
   if (s.noCooling) add(scores, 'compressor-start', 1.5);
 }
 
-function scoreEvaporatorFan(s: Signature, scores: Scores): void {
+/**
+ * The freezer warms at a moderate pace with the compressor running on: a stopped evaporator
+ * fan or a starved condenser. The fresh food tells them apart: with the fan stopped it loses
+ * its cold supply and warms; with the condenser starved the fan still blows the continuously
+ * running coil's cold into it and it gets colder.
+ */
+function scoreModerateWarming(s: Signature, scores: Scores): void {
   const z = s.freezer;
   const f = s.freshFood;
-  if (s.style === 'chest-freezer' || !z) return;
-  const warmer = z.riseC >= 1.5 && z.riseC < HEADING_TO_ROOM_C;
-  if (f && warmer && f.riseC >= 0.5) add(scores, 'evaporator-fan', 3);
-  if (!f && warmer && slope(z) >= 0.5) add(scores, 'evaporator-fan', 2.5);
-  // Later: both levelled off short of room temperature, fresh food near 10 °C.
-  const plateau = f !== null && f.levelRiseC >= 3 && z.levelRiseC >= 4 && Math.abs(slope(z)) < 0.5;
-  if (plateau) add(scores, 'evaporator-fan', 2.5);
-}
-
-function scoreCondenser(s: Signature, scores: Scores): void {
-  const z = s.freezer;
-  const f = s.freshFood;
-  if (!z) {
-    if (f && f.levelRiseC >= 1 && slope(f) < 0.5 && (f.spikeRatio ?? 1) < CONTINUOUS_RUN_SPIKE_RATIO) add(scores, 'condenser-airflow', 2);
-    return;
+  if (!z || s.style === 'chest-freezer' && z.riseC < 1.5) return;
+  const warmer = z.riseC >= 1.5 && z.riseC < HEADING_TO_ROOM_C && slope(z) < FAST_CLIMB_C_PER_H && z.levelC < -3;
+  if (warmer && f) {
+    if (f.levelRiseC <= -FRESH_SHIFT_C) add(scores, 'condenser-airflow', 3.5);
+    else if (f.riseC >= FRESH_SHIFT_C) add(scores, 'evaporator-fan', 3.5);
+    else {
+      add(scores, 'evaporator-fan', 1.5);
+      add(scores, 'condenser-airflow', 1.5);
+    }
+  } else if (warmer) {
+    // A freezer alone: a fan stop warms it faster than a starved condenser does.
+    add(scores, slope(z) >= 0.5 ? 'evaporator-fan' : 'condenser-airflow', 3);
   }
-  if (z.levelRiseC < 1 || slope(z) >= SLOW_CLIMB_C_PER_H || z.riseC >= HEADING_TO_ROOM_C) return;
-  if (f && f.levelRiseC > 0.5) return;
-  add(scores, 'condenser-airflow', 2);
-  if ((z.spikeRatio ?? 1) < CONTINUOUS_RUN_SPIKE_RATIO) add(scores, 'condenser-airflow', 1.5);
+  if ((z.spikeRatio ?? 1) < CONTINUOUS_RUN_SPIKE_RATIO && warmer) add(scores, 'condenser-airflow', 0.5);
+  // Later: both levelled off short of room temperature, fresh food near 10 °C. A freezer
+  // levelled off near 0 °C is thawing contents (no cooling at all), not a stopped fan.
+  const plateau = f !== null && f.levelRiseC >= 3 && z.levelRiseC >= 4 && z.levelC < -3 && Math.abs(slope(z)) < 0.5;
+  if (plateau) add(scores, 'evaporator-fan', 2.5);
+  if (!f && s.style !== 'chest-freezer' && z.levelRiseC >= 6 && z.levelC < -3 && Math.abs(slope(z)) < 0.5) add(scores, 'evaporator-fan', 1.5);
 }
 
 function scoreDamperAndDefrost(s: Signature, scores: Scores): void {
   const z = s.freezer;
   const f = s.freshFood;
-  const defrostFading = (s.defrostOverdueRatio ?? 0) >= 2 || (s.lastDefrostRiseRatio ?? 1) < 0.6;
-  if (defrostFading) add(scores, 'defrost-system', 1.5);
+  const overdue = s.defrostOverdueRatio ?? 0;
+  const defrostFading = overdue >= 2 || (s.lastDefrostRiseRatio ?? 1) < 0.6;
+  // Defrost rises gone for two intervals before any other trouble: the coil is icing up, and
+  // an iced coil then chokes the air like a stopped fan or a closed damper.
+  // (A freezer far above its normal hides its defrost rises: no evidence either way then.)
+  const freezerNearNormal = !z || z.levelRiseC < HEADING_TO_ROOM_C;
+  if (defrostFading && freezerNearNormal) add(scores, 'defrost-system', overdue >= 3 ? 4 : 2.5);
   if (!z || !f || f.levelRiseC < 0.8 || z.levelRiseC > 0.5) return;
   // Fresh food warmer, freezer not: the cold air no longer reaches the fresh food. A damper
   // sticks at once; ice from a dead defrost heater closes the duct over days.
@@ -138,8 +157,8 @@ function scoreDamperAndDefrost(s: Signature, scores: Scores): void {
 function scoreDoorSeal(s: Signature, scores: Scores): void {
   const ratios = [s.freshFood?.spikeRatio, s.freezer?.spikeRatio].filter((r): r is number => r !== null && r !== undefined);
   const spikiest = ratios.length ? Math.max(...ratios) : 0;
-  if (spikiest >= SPIKY_RATIO) add(scores, 'door-seal', 3);
-  if (spikiest >= 2 * SPIKY_RATIO) add(scores, 'door-seal', 1);
+  if (spikiest >= SPIKY_RATIO) add(scores, 'door-seal', 4);
+  if (spikiest >= 4 / 3 * SPIKY_RATIO) add(scores, 'door-seal', 1.5);
 }
 
 /** Causes an appliance of this style can have (a chest freezer has no fan, damper or auto defrost). */
@@ -152,23 +171,45 @@ export function possibleCauses(style: ApplianceStyle): CauseCode[] {
 
 const ROUND = 100;
 
-export function diagnose(signature: Signature): ProbableCause[] {
+export type CauseScores = Partial<Record<CauseCode, number>>;
+
+/** Evidence for each cause in the signature as it is now. */
+export function scoreCauses(signature: Signature): CauseScores {
   const scores: Scores = {};
   scoreFastClimb(signature, scores);
-  scoreEvaporatorFan(signature, scores);
-  scoreCondenser(signature, scores);
+  scoreModerateWarming(signature, scores);
   scoreDamperAndDefrost(signature, scores);
   scoreDoorSeal(signature, scores);
-  const allowed = possibleCauses(signature.style);
+  return scores;
+}
+
+/** Normalised confidences of the causes this style can have, best first, at most four. */
+export function causesFrom(scores: CauseScores, style: ApplianceStyle): ProbableCause[] {
+  const allowed = possibleCauses(style);
   // A little weight everywhere keeps the list honest: the signature never proves a cause.
-  for (const code of allowed) add(scores, code, 0.25);
-  const entries = allowed.map((code) => [code, scores[code] ?? 0] as const);
+  const entries = allowed.map((code) => [code, (scores[code] ?? 0) + 0.25] as const);
   const total = entries.reduce((sum, [, score]) => sum + score, 0);
   return entries
     .map(([code, score]) => ({ code, confidence: Math.floor((score / total) * ROUND) / ROUND }))
     .filter((cause) => cause.confidence >= 0.05)
     .sort((a, b) => b.confidence - a.confidence || a.code.localeCompare(b.code))
     .slice(0, 4);
+}
+
+export function diagnose(signature: Signature): ProbableCause[] {
+  return causesFrom(scoreCauses(signature), signature.style);
+}
+
+/**
+ * Evidence remembered over an episode: the decisive early shape of a failure (a freezer
+ * climbing fast while the fresh food holds) outweighs the dull shape of its late phase, so
+ * each cause keeps the best evidence seen, fading slowly (a half-life of about 3.5 days of quarter-hours).
+ */
+export function rememberEvidence(memory: CauseScores, now: CauseScores, fade: number): CauseScores {
+  const merged: CauseScores = {};
+  const codes = new Set([...Object.keys(memory), ...Object.keys(now)] as CauseCode[]);
+  for (const code of codes) merged[code] = Math.max((memory[code] ?? 0) * fade, now[code] ?? 0);
+  return merged;
 }
 
 /** A sensor fault: the only cause is the sensor. */

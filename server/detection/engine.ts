@@ -17,7 +17,7 @@ import { judgeOverTemp, overTempPatch } from './over-temperature';
 import { judgeValue, recordVerdict } from './probe-check';
 import { cyclePeriodMinutes, defrostRhythm, doorOpeningsPerDay, trackCycle, trackDoor, trackExcursion, transientLimitMinutes } from './rhythm';
 import { DEFAULT_SETTINGS, type DetectionSettings } from './settings';
-import { currentCauses } from './signature';
+import { currentCauses, forgetEvidence } from './signature';
 import { newEngineState, STATE_VERSION, type EngineState, type ProbeState } from './state';
 import { SENSOR_CAUSES } from './diagnosis';
 import { sensorSummary } from './summaries';
@@ -185,7 +185,10 @@ export class DetectionEngine {
 
   private refreshOpenFindings(atMs: number): void {
     const s = this.state;
-    if (!s.findings.some(isRepairFinding)) return;
+    if (!s.findings.some(isRepairFinding)) {
+      forgetEvidence(this.ctx);
+      return;
+    }
     const causes = currentCauses(this.ctx);
     const patches: { finding: Finding; patch: FindingPatch }[] = [];
     for (const p of s.probes) {

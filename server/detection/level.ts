@@ -118,14 +118,39 @@ export function robustSlopeCPerHour(level: ProbeLevel, windowMinutes: number): n
   return seriesSlopeCPerHour(level.levelTimesMs, level.levelsC, windowMinutes);
 }
 
-/** The same over every recent bucket mean, transients included (for the diagnosis). */
-export function recentSlopeCPerHour(level: ProbeLevel, windowMinutes: number): number | null {
-  return seriesSlopeCPerHour(level.recentTimesMs, level.recentMeansC, windowMinutes);
+const recentTimes: number[] = [];
+const recentValues: number[] = [];
+
+/** Mean of the readings of the bucket still open, or null if it has none yet. */
+function openBucketMeanC(level: ProbeLevel): number | null {
+  return level.bucketCount > 0 ? level.bucketSumC / level.bucketCount : null;
 }
 
-/** Latest bucket mean minus the baseline. */
+/**
+ * Slope over every recent bucket mean, transients included, plus the bucket still open
+ * (placed at `nowMs`): the diagnosis sees the raw shape as of this reading.
+ */
+export function recentSlopeCPerHour(level: ProbeLevel, windowMinutes: number, nowMs: number): number | null {
+  recentTimes.length = 0;
+  recentValues.length = 0;
+  for (let i = 0; i < level.recentTimesMs.length; i++) {
+    recentTimes.push(level.recentTimesMs[i]);
+    recentValues.push(level.recentMeansC[i]);
+  }
+  const open = openBucketMeanC(level);
+  if (open !== null && nowMs > (recentTimes[recentTimes.length - 1] ?? -Infinity)) {
+    recentTimes.push(nowMs);
+    recentValues.push(open);
+  }
+  return seriesSlopeCPerHour(recentTimes, recentValues, windowMinutes);
+}
+
+/** The latest readings (the open bucket, or else the last closed one) minus the baseline. */
 export function recentRiseC(level: ProbeLevel): number | null {
-  if (level.baselineC === null || level.recentMeansC.length === 0) return null;
+  if (level.baselineC === null) return null;
+  const open = openBucketMeanC(level);
+  if (open !== null) return open - level.baselineC;
+  if (level.recentMeansC.length === 0) return null;
   return level.recentMeansC[level.recentMeansC.length - 1] - level.baselineC;
 }
 

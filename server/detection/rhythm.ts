@@ -16,8 +16,8 @@ const PERIOD_RING = 16;
 const DEFROST_RING = 12;
 const MIN_CYCLE_MIN = 8;
 const MAX_CYCLE_MIN = 600;
-/** A defrost keeps the air up for more than a few minutes; a door opening recovers faster. */
-const DEFROST_MIN_MINUTES = 10;
+/** A defrost keeps the air up for 20 minutes or more; the air recovers from a door opening faster. */
+const DEFROST_MIN_MINUTES = 20;
 const NORMAL_DEFROSTS = 2;
 
 // Readings mostly come at one interval: the weight for the last gap is kept, not recomputed.

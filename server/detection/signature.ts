@@ -1,9 +1,10 @@
 /** Reads the current temperature signature out of the engine state for the diagnosis. */
 import type { Probe } from '../../shared/domain';
 import { HOUR_MS, isTrusted, probeState, type EngineContext } from './context';
-import { diagnose, type ProbeSignature, type Signature } from './diagnosis';
-import { recentRiseC, recentSlopeCPerHour, residualC } from './level';
-import { defrostRhythm } from './rhythm';
+import { causesFrom, rememberEvidence, scoreCauses, type ProbeSignature, type Signature } from './diagnosis';
+import { recentRiseC, recentSlopeCPerHour, residualC, robustSlopeCPerHour } from './level';
+import { defrostRhythm, transientLimitMinutes } from './rhythm';
+import type { ProbeState } from './state';
 import type { ProbableCause } from './types';
 
 const RECENT_SLOPE_MINUTES = 120;
@@ -12,18 +13,25 @@ function hoursSince(fromMs: number | null, nowMs: number): number | null {
   return fromMs === null ? null : (nowMs - fromMs) / HOUR_MS;
 }
 
+function isYoungExcursion(ctx: EngineContext, p: ProbeState, nowMs: number): boolean {
+  const startMs = p.rhythm.excursionStartMs;
+  return startMs !== null && nowMs - startMs <= transientLimitMinutes(ctx.state, ctx.settings) * 60_000;
+}
+
 function probeSignature(ctx: EngineContext, probe: Probe): ProbeSignature | null {
   const p = probeState(ctx.state, probe);
   if (!p || !isTrusted(p) || p.level.levelC === null) return null;
-  const rise = recentRiseC(p.level);
   const levelRise = residualC(p.level);
-  if (rise === null || levelRise === null) return null;
+  if (levelRise === null) return null;
   const nowMs = ctx.state.lastAtMs ?? 0;
+  // While a brief excursion (a defrost, a door) is under way the raw shape says nothing yet.
+  const young = isYoungExcursion(ctx, p, nowMs);
+  const rise = young ? levelRise : (recentRiseC(p.level) ?? levelRise);
   const normalSpike = p.level.normalSpikeC;
   return {
     riseC: rise,
     levelRiseC: levelRise,
-    slopeCPerHour: recentSlopeCPerHour(p.level, RECENT_SLOPE_MINUTES),
+    slopeCPerHour: young ? robustSlopeCPerHour(p.level, RECENT_SLOPE_MINUTES) : recentSlopeCPerHour(p.level, RECENT_SLOPE_MINUTES, nowMs),
     hoursRising: hoursSince(p.trend.cusumOnsetMs, nowMs),
     hoursColder: hoursSince(p.trend.coldSinceMs, nowMs),
     coolingHours: p.trend.coolingHours,
@@ -58,6 +66,16 @@ export function currentSignature(ctx: EngineContext): Signature {
   };
 }
 
+const EVIDENCE_FADE_PER_CALL = 0.998;
+
+/** Causes for a repair finding: today's signature merged with the episode's remembered evidence. */
 export function currentCauses(ctx: EngineContext): ProbableCause[] {
-  return diagnose(currentSignature(ctx));
+  const state = ctx.state;
+  state.causeEvidence = rememberEvidence(state.causeEvidence, scoreCauses(currentSignature(ctx)), EVIDENCE_FADE_PER_CALL);
+  return causesFrom(state.causeEvidence, state.style);
+}
+
+/** Forgets the episode's evidence once no repair finding is open. */
+export function forgetEvidence(ctx: EngineContext): void {
+  ctx.state.causeEvidence = {};
 }

@@ -3,7 +3,7 @@
  * batch and resume after a restart without re-reading the history. Rings are short plain
  * arrays (a few dozen numbers); nothing here grows with the length of the history.
  */
-import type { ApplianceStyle, Probe } from '../../shared/domain';
+import type { ApplianceStyle, CauseCode, Probe } from '../../shared/domain';
 import type { Finding } from './types';
 import { newCusum, type CusumState } from './stats/cusum';
 
@@ -125,6 +125,8 @@ export interface EngineState {
   doorFlagsSeen: boolean;
   doorOpenings: number;
   doorOpeningsByHourUtc: number[];
+  /** Evidence per cause remembered over the current episode of repair findings. */
+  causeEvidence: Partial<Record<CauseCode, number>>;
   noCoolingFindingId: string | null;
   noCoolingRecoveredSinceMs: number | null;
   /** Open findings only; a closed finding is reported once and forgotten. */
@@ -216,6 +218,7 @@ export function newEngineState(style: ApplianceStyle, probes: readonly Probe[]):
     doorFlagsSeen: false,
     doorOpenings: 0,
     doorOpeningsByHourUtc: new Array(24).fill(0),
+    causeEvidence: {},
     noCoolingFindingId: null,
     noCoolingRecoveredSinceMs: null,
     findings: [],

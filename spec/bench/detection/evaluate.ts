@@ -14,8 +14,12 @@ import { HOUR_MS, type Scenario } from './scenarios';
 export interface Detection {
   detectedAtMs: number;
   topCauseAtOpen: CauseCode | null;
+  /** The most probable cause the work order shows when a technician arrives, 6 hours on. */
+  topCauseAtVisit: CauseCode | null;
   topCauseFinal: CauseCode | null;
 }
+
+export const VISIT_AFTER_MS = 6 * HOUR_MS;
 
 export interface DetectorOutcome {
   /** First repair finding (or alarm) at or after the onset. */
@@ -104,24 +108,37 @@ export function foodAtRiskAt(scenario: Scenario, trace: SimSample[]): number | n
 
 function runEngine(scenario: Scenario, trace: SimSample[]): { outcome: DetectorOutcome; findings: Finding[] } {
   const engine = new DetectionEngine(scenario.style);
+  const onset = scenario.onsetMs ?? Infinity;
   const opened = new Map<string, { finding: Finding; topAtOpen: CauseCode | null }>();
   const final = new Map<string, Finding>();
+  let firstAfterOnset: Finding | null = null;
+  let latestCause: CauseCode | null = null;
+  let causeAtVisit: CauseCode | null = null;
   for (const s of trace) {
     for (const event of engine.push({ atMs: s.atMs, freshFoodC: s.freshFoodC, freezerC: s.freezerC })) {
       final.set(event.finding.id, event.finding);
       if (event.type === 'opened') opened.set(event.finding.id, { finding: event.finding, topAtOpen: event.finding.probableCauses[0]?.code ?? null });
+      if (!isRepairFinding(event.finding) || event.finding.detectedAtMs < onset) continue;
+      if (event.type === 'opened' && firstAfterOnset === null) firstAfterOnset = event.finding;
+      if (event.type !== 'closed') latestCause = event.finding.probableCauses[0]?.code ?? latestCause;
     }
+    if (firstAfterOnset && causeAtVisit === null && s.atMs >= firstAfterOnset.detectedAtMs + VISIT_AFTER_MS) causeAtVisit = latestCause;
   }
   for (const f of engine.openFindings()) final.set(f.id, f);
   // A sensor that stops sending altogether is seen as silent, not as a finding.
   const silentAtEnd = engine.health(scenario.startMs + scenario.durationMs) === 'silent';
-  const onset = scenario.onsetMs ?? Infinity;
   const repairs = [...opened.values()].filter((o) => isRepairFinding(o.finding));
-  const after = repairs.filter((o) => o.finding.detectedAtMs >= onset).sort((a, b) => a.finding.detectedAtMs - b.finding.detectedAtMs);
-  const first = after[0];
+  const first = firstAfterOnset ? opened.get(firstAfterOnset.id)! : undefined;
   return {
     outcome: {
-      first: first ? { detectedAtMs: first.finding.detectedAtMs, topCauseAtOpen: first.topAtOpen, topCauseFinal: final.get(first.finding.id)?.probableCauses[0]?.code ?? null } : null,
+      first: first
+        ? {
+            detectedAtMs: first.finding.detectedAtMs,
+            topCauseAtOpen: first.topAtOpen,
+            topCauseAtVisit: causeAtVisit ?? latestCause,
+            topCauseFinal: latestCause,
+          }
+        : null,
       falseRepair: repairs.filter((o) => o.finding.detectedAtMs < onset).length,
       sensorFaultFound: silentAtEnd || [...opened.values()].some((o) => o.finding.kind === 'sensor-fault' && o.finding.detectedAtMs >= onset),
     },
@@ -134,7 +151,7 @@ function runThermometer(scenario: Scenario, trace: SimSample[]): DetectorOutcome
   const onset = scenario.onsetMs ?? Infinity;
   const first = alarms.find((t) => t >= onset);
   return {
-    first: first !== undefined ? { detectedAtMs: first, topCauseAtOpen: null, topCauseFinal: null } : null,
+    first: first !== undefined ? { detectedAtMs: first, topCauseAtOpen: null, topCauseAtVisit: null, topCauseFinal: null } : null,
     falseRepair: alarms.filter((t) => t < onset).length,
     sensorFaultFound: false,
   };

@@ -1,0 +1,206 @@
+/**
+ * Ingest benchmark (issue 3), run by `npm run bench` or on its own:
+ *   TSX_TSCONFIG_PATH=server/tsconfig.json npx tsx spec/bench/ingest-bench.ts
+ * against the project's PostgreSQL (a throwaway database). Processes as deployed: the
+ * broker in its own process, the sensors (one MQTT connection each) in another, the
+ * subscriber or ingest worker in this one. Figures:
+ *   1. the broker alone: QoS 1 readings moved to a subscriber that stores nothing;
+ *   2. ingest: readings per second from the first publish to the last committed row,
+ *      QoS 1, checked for loss against the table;
+ *   3. publish-to-stored latency p50/p99 at a paced 5,000 readings/s;
+ *   4. history query p95 (server time) for a one-year range of one-minute readings.
+ * BENCH_READINGS changes the run length (default 100,000 per throughput phase).
+ */
+import { spawn, type ChildProcessWithoutNullStreams } from 'node:child_process';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import readline from 'node:readline';
+import mqtt from 'mqtt';
+import { Pool } from 'pg';
+import { freePort, nodeArgsFor, startProcess, tcpOpen, waitFor, type ManagedProcess } from '../../broker/cluster/processes';
+import { PartitionManager } from '../../server/ingest/partitions';
+import { insertReadings, type StoredReading } from '../../server/ingest/store';
+import type { IngestWorker } from '../../server/ingest/worker';
+import { HistoryService } from '../../server/telemetry/history-service';
+import { createTestDatabase, type TestDatabase } from '../support/test-db';
+import { TEST_INGEST, createDevice, createPlacement, ingestConfig, sleep, testWorker, type TestDevice } from '../telemetry/support/telemetry-fixture';
+
+const READINGS = Number(process.env.BENCH_READINGS ?? 100_000);
+const DEVICES = 50;
+const WINDOW_PER_DEVICE = 4;
+const LATENCY_RATE_PER_S = 5000;
+const LATENCY_SECONDS = 15;
+const HISTORY_QUERIES = 40;
+const NOTES_FILE = '/work/notes/ingest-bench.txt';
+const DAY_MS = 86_400_000;
+
+interface Publisher {
+  run(run: Record<string, unknown>): Promise<{ publishMs: number }>;
+  stop(): void;
+}
+
+async function startPublisher(url: string, devices: TestDevice[]): Promise<Publisher> {
+  const config = JSON.stringify({ url, devices: devices.map(({ deviceId, secret }) => ({ deviceId, secret })) });
+  const child: ChildProcessWithoutNullStreams = spawn(process.execPath, ['--import', 'tsx', path.join(__dirname, 'ingest-publisher.ts'), config], {
+    env: { ...process.env, TSX_TSCONFIG_PATH: path.join(__dirname, '..', '..', 'server', 'tsconfig.json') },
+  });
+  child.stderr.on('data', (chunk) => process.stderr.write(chunk));
+  const lines = readline.createInterface({ input: child.stdout });
+  const waiting: ((line: string) => void)[] = [];
+  lines.on('line', (line) => waiting.shift()?.(line));
+  const next = () => new Promise<string>((resolve) => waiting.push(resolve));
+  if ((await next()) !== 'ready') throw new Error('publisher did not start');
+  return {
+    async run(run) {
+      const reply = next();
+      child.stdin.write(`go ${JSON.stringify({ window: WINDOW_PER_DEVICE, ratePerS: null, timestamps: 'sequence', baseMs: 0, stepMs: 1000, firstSeq: 0, ...run })}\n`);
+      return JSON.parse((await reply).slice('done '.length));
+    },
+    stop: () => child.stdin.end('quit\n'),
+  };
+}
+
+const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))];
+const rate = (count: number, ms: number) => Math.round(count / (ms / 1000));
+
+/** 1. The broker alone: a subscriber that acknowledges at once and stores nothing. */
+async function brokerOnly(url: string, publisher: Publisher, baseMs: number): Promise<number> {
+  const subscriber = await mqtt.connectAsync(url, { clientId: 'cw-bench-null', username: TEST_INGEST.username, password: TEST_INGEST.password, protocolVersion: 4, clean: true });
+  await subscriber.subscribeAsync('cw/v1/s/+/+/reading', { qos: 1 });
+  let received = 0;
+  let lastMs = 0;
+  subscriber.on('message', () => {
+    received++;
+    lastMs = Date.now();
+  });
+  const startedMs = Date.now();
+  await publisher.run({ count: READINGS, baseMs, firstSeq: 0 });
+  while (received < READINGS) await sleep(20);
+  await subscriber.endAsync();
+  return rate(READINGS, lastMs - startedMs);
+}
+
+/** 2. Ingest: from the first publish to the last committed row. */
+async function ingestThroughput(worker: IngestWorker, publisher: Publisher, db: TestDatabase, baseMs: number): Promise<{ perS: number; stored: number }> {
+  const before = worker.stats().stored;
+  const startedMs = Date.now();
+  await publisher.run({ count: READINGS, baseMs, firstSeq: 1_000_000 });
+  while (worker.stats().stored - before < READINGS) await sleep(10);
+  const elapsedMs = Date.now() - startedMs;
+  const [row] = await db.dataSource.query('SELECT count(*)::int AS n FROM reading');
+  return { perS: rate(READINGS, elapsedMs), stored: row.n };
+}
+
+/** 3. Latency at a paced rate: reading time is the publish time, the hook sees the commit. */
+async function latency(publisher: Publisher, latencies: number[]): Promise<{ p50: number; p99: number; achievedPerS: number }> {
+  latencies.length = 0;
+  const count = LATENCY_RATE_PER_S * LATENCY_SECONDS;
+  const { publishMs } = await publisher.run({ count, ratePerS: LATENCY_RATE_PER_S, timestamps: 'publish', firstSeq: 2_000_000 });
+  while (latencies.length < count) await sleep(20);
+  const sorted = [...latencies].sort((a, b) => a - b);
+  return { p50: percentile(sorted, 50), p99: percentile(sorted, 99), achievedPerS: rate(count, publishMs) };
+}
+
+/** 4. A year of one-minute readings through the store, then the one-year history query. */
+async function historyQuery(db: TestDatabase, device: TestDevice): Promise<{ p50: number; p95: number; points: number; resolution: string }> {
+  const endMs = Math.floor(Date.now() / 60_000) * 60_000 - 10 * DAY_MS;
+  const startMs = endMs - 365 * DAY_MS;
+  const pool = new Pool({ connectionString: db.url, max: 1 });
+  const client = await pool.connect();
+  try {
+    const partitions = new PartitionManager(pool);
+    for (let atMs = startMs; atMs < endMs; atMs += 20_000 * 60_000) {
+      const batch: StoredReading[] = [];
+      for (let i = 0; i < 20_000 && atMs + i * 60_000 < endMs; i++) {
+        const t = atMs + i * 60_000;
+        const minute = t / 60_000;
+        batch.push({ deviceId: device.deviceId, sensorId: device.sensorId, applianceId: device.applianceId, seq: minute, atMs: t, freshFoodC: Math.round((3 + Math.sin(minute / 7)) * 16) / 16, freezerC: -18.5, freshFoodFlag: null, freezerFlag: null, batteryV: null, doorOpen: null });
+      }
+      await partitions.ensureFor(client, [batch[0].atMs, batch[batch.length - 1].atMs]);
+      await insertReadings(client, batch);
+    }
+  } finally {
+    client.release();
+    await pool.end();
+  }
+  await db.dataSource.query('ANALYZE');
+  const service = new HistoryService<null>(db.dataSource, { assertCanReadAppliance: async () => undefined });
+  const times: number[] = [];
+  let last = await service.applianceHistory(null, device.applianceId, { fromMs: startMs, toMs: endMs });
+  for (let i = 0; i < HISTORY_QUERIES + 5; i++) {
+    const t0 = performance.now();
+    last = await service.applianceHistory(null, device.applianceId, { fromMs: startMs + i * 60_000, toMs: endMs });
+    if (i >= 5) times.push(performance.now() - t0);
+  }
+  times.sort((a, b) => a - b);
+  return { p50: percentile(times, 50), p95: percentile(times, 95), points: last.probes.fresh_food?.points.length ?? 0, resolution: `${last.resolution} (${last.source}, ${(last.bucketMs ?? 0) / 3_600_000} h buckets)` };
+}
+
+function report(lines: [string, string, string][]): string {
+  const widths = [0, 1, 2].map((c) => Math.max(...lines.map((line) => line[c].length)));
+  return lines.map((line) => line.map((cell, c) => cell.padEnd(widths[c])).join('  ').trimEnd()).join('\n');
+}
+
+async function main(): Promise<void> {
+  const db = await createTestDatabase('cw_bench');
+  const processes: ManagedProcess[] = [];
+  let publisher: Publisher | null = null;
+  let worker: IngestWorker | null = null;
+  try {
+    const placement = await createPlacement(db.dataSource);
+    const devices: TestDevice[] = [];
+    for (let i = 0; i < DEVICES; i++) devices.push(await createDevice(db.dataSource, placement));
+    const port = await freePort();
+    const { args, env } = nodeArgsFor('broker/main');
+    const broker = startProcess('broker', process.execPath, args, { ...env, DATABASE_URL: db.url, MQTT_PORT: String(port), MQTT_INGEST_PASSWORD: TEST_INGEST.password, LOG_LEVEL: 'warn' });
+    processes.push(broker);
+    await waitFor('starting', broker, () => tcpOpen(port));
+    const url = `mqtt://127.0.0.1:${port}`;
+    publisher = await startPublisher(url, devices);
+
+    const baseMs = Date.now() - 30 * DAY_MS;
+    const brokerPerS = await brokerOnly(url, publisher, baseMs);
+
+    const latencies: number[] = [];
+    worker = testWorker(url, db.url, ingestConfig({ clientId: 'cw-bench-ingest' }), (batch) => {
+      for (const reading of batch.readings) if (reading.seq >= 2_000_000) latencies.push(batch.committedAtMs - reading.atMs);
+    });
+    await worker.start();
+    const ingest = await ingestThroughput(worker, publisher, db, baseMs);
+    const lag = await latency(publisher, latencies);
+    await worker.stop();
+    worker = null;
+    publisher.stop();
+    publisher = null;
+    const history = await historyQuery(db, devices[0]);
+
+    const ratio = ingest.perS / brokerPerS;
+    const table = report([
+      ['figure', 'measured', 'target'],
+      ['broker alone, QoS 1 to a subscriber storing nothing', `${brokerPerS.toLocaleString('en-US')} readings/s`, '(reference)'],
+      ['ingest, MQTT publish → committed rows, QoS 1', `${ingest.perS.toLocaleString('en-US')} readings/s`, '≥ 20,000/s and ≥ half the broker alone'],
+      ['  ingest ÷ broker alone', `${(ratio * 100).toFixed(0)} %`, '≥ 50 %'],
+      ['  rows stored / readings published', `${ingest.stored.toLocaleString('en-US')} / ${READINGS.toLocaleString('en-US')}`, 'equal (no loss)'],
+      [`publish → stored latency at ${LATENCY_RATE_PER_S.toLocaleString('en-US')}/s (achieved ${lag.achievedPerS.toLocaleString('en-US')}/s)`, `p50 ${lag.p50} ms, p99 ${lag.p99} ms`, ''],
+      ['history, one-year range of one-minute readings (server time)', `p50 ${history.p50.toFixed(1)} ms, p95 ${history.p95.toFixed(1)} ms`, 'p95 ≤ 50 ms'],
+      ['  answer', `${history.points} points per probe, ${history.resolution}`, '≤ 2,000 points'],
+    ]);
+    const machine = `${os.cpus().length} × ${os.cpus()[0]?.model ?? 'cpu'}, Node ${process.version}, ${new Date().toISOString()}`;
+    const text = `Ingest benchmark (${DEVICES} sensors, ${READINGS.toLocaleString('en-US')} readings per throughput run, ${WINDOW_PER_DEVICE} in flight per sensor)\n${machine}\n\n${table}\n`;
+    console.log(text);
+    fs.mkdirSync(path.dirname(NOTES_FILE), { recursive: true });
+    fs.writeFileSync(NOTES_FILE, text);
+    if (ingest.stored !== READINGS) process.exitCode = 1;
+  } finally {
+    await worker?.stop();
+    publisher?.stop();
+    await Promise.all(processes.map((p) => p.stop()));
+    await db.drop();
+  }
+}
+
+main().catch((error) => {
+  console.error(error);
+  process.exit(1);
+});

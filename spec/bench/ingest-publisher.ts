@@ -1,0 +1,105 @@
+/**
+ * The sensors' side of the ingest benchmark, in its own process (spec/bench/ingest-bench.ts
+ * starts it): signs every device in with its own credentials, prints "ready", and on each
+ * "go <json>" line on standard input publishes a run of readings, then prints "done <json>".
+ *
+ * A run: `count` readings spread round-robin over the devices, QoS 1, at most `window`
+ * unacknowledged per connection; `ratePerS` paces the run (null: as fast as it goes);
+ * `timestamps: "publish"` stamps each reading with its publish time (for latency),
+ * otherwise `baseMs + seq * stepMs`.
+ */
+import readline from 'node:readline';
+import mqtt, { type MqttClient } from 'mqtt';
+import { readingTopic } from '../../shared/telemetry';
+
+interface Device {
+  deviceId: string;
+  secret: string;
+}
+
+interface Run {
+  count: number;
+  window: number;
+  ratePerS: number | null;
+  timestamps: 'publish' | 'sequence';
+  baseMs: number;
+  stepMs: number;
+  firstSeq: number;
+}
+
+interface Link {
+  client: MqttClient;
+  topic: string;
+  deviceId: string;
+  inFlight: number;
+  waiters: (() => void)[];
+  /** Publish-time stamps stay distinct per device: (sensor, time) is the reading's key. */
+  lastAtMs: number;
+}
+
+const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
+
+async function open(url: string, device: Device): Promise<Link> {
+  const client = await mqtt.connectAsync(url, { clientId: device.deviceId, username: device.deviceId, password: device.secret, protocolVersion: 4, reconnectPeriod: 0, keepalive: 120 });
+  return { client, topic: readingTopic(device.deviceId), deviceId: device.deviceId, inFlight: 0, waiters: [], lastAtMs: 0 };
+}
+
+async function send(link: Link, payload: string, window: number): Promise<void> {
+  while (link.inFlight >= window) await new Promise<void>((resolve) => link.waiters.push(resolve));
+  link.inFlight++;
+  link.client.publish(link.topic, payload, { qos: 1 }, () => {
+    link.inFlight--;
+    link.waiters.shift()?.();
+  });
+}
+
+function payloadFor(link: Link, seq: number, run: Run): string {
+  const atMs = run.timestamps === 'publish' ? Math.max(Date.now(), link.lastAtMs + 1) : run.baseMs + seq * run.stepMs;
+  link.lastAtMs = atMs;
+  const freshFoodC = 3 + ((seq * 7) % 32) / 16;
+  return `{"sensor":"${link.deviceId}","seq":${seq},"at":"${new Date(atMs).toISOString()}","fresh_food":${freshFoodC},"freezer":-18.5,"battery_v":3.01,"door":"closed"}`;
+}
+
+async function publishRun(links: Link[], run: Run): Promise<{ publishMs: number }> {
+  const startedMs = Date.now();
+  const perDevice = Math.ceil(run.count / links.length);
+  // Paced runs send in 10 ms slices so the rate holds without a timer per message.
+  const sliceMs = 10;
+  let sent = 0;
+  for (let round = 0; round < perDevice && sent < run.count; round++) {
+    for (const link of links) {
+      if (sent >= run.count) break;
+      await send(link, payloadFor(link, run.firstSeq + round, run), run.window);
+      sent++;
+      if (run.ratePerS && sent % Math.max(1, Math.round((run.ratePerS * sliceMs) / 1000)) === 0) {
+        const dueMs = startedMs + (sent / run.ratePerS) * 1000;
+        const aheadMs = dueMs - Date.now();
+        if (aheadMs > 0) await sleep(aheadMs);
+      }
+    }
+  }
+  await Promise.all(links.map(async (link) => {
+    while (link.inFlight > 0) await new Promise<void>((resolve) => link.waiters.push(resolve));
+  }));
+  return { publishMs: Date.now() - startedMs };
+}
+
+async function main(): Promise<void> {
+  const { url, devices } = JSON.parse(process.argv[2]) as { url: string; devices: Device[] };
+  const links = await Promise.all(devices.map((device) => open(url, device)));
+  process.stdout.write('ready\n');
+  const lines = readline.createInterface({ input: process.stdin });
+  for await (const line of lines) {
+    if (line === 'quit') break;
+    if (!line.startsWith('go ')) continue;
+    const result = await publishRun(links, JSON.parse(line.slice(3)) as Run);
+    process.stdout.write(`done ${JSON.stringify(result)}\n`);
+  }
+  await Promise.all(links.map((link) => link.client.endAsync()));
+  process.exit(0);
+}
+
+main().catch((error) => {
+  process.stderr.write(`publisher: ${(error as Error).message}\n`);
+  process.exit(1);
+});
