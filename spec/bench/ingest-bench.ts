@@ -28,12 +28,14 @@ import { TEST_INGEST, createDevice, createPlacement, ingestConfig, sleep, testWo
 
 const READINGS = Number(process.env.BENCH_READINGS ?? 100_000);
 const DEVICES = 50;
-const WINDOW_PER_DEVICE = 4;
+const WINDOW_PER_DEVICE = 8;
 const LATENCY_RATE_PER_S = 5000;
 const LATENCY_SECONDS = 15;
 const HISTORY_QUERIES = 40;
 const NOTES_FILE = '/work/notes/ingest-bench.txt';
 const DAY_MS = 86_400_000;
+/** BENCH_PROFILE_DIR=dir writes CPU profiles of the broker and publisher processes there. */
+const PROFILE_ARGS = process.env.BENCH_PROFILE_DIR ? ['--cpu-prof', `--cpu-prof-dir=${process.env.BENCH_PROFILE_DIR}`] : [];
 
 interface Publisher {
   run(run: Record<string, unknown>): Promise<{ publishMs: number }>;
@@ -42,7 +44,7 @@ interface Publisher {
 
 async function startPublisher(url: string, devices: TestDevice[]): Promise<Publisher> {
   const config = JSON.stringify({ url, devices: devices.map(({ deviceId, secret }) => ({ deviceId, secret })) });
-  const child: ChildProcessWithoutNullStreams = spawn(process.execPath, ['--import', 'tsx', path.join(__dirname, 'ingest-publisher.ts'), config], {
+  const child: ChildProcessWithoutNullStreams = spawn(process.execPath, [...PROFILE_ARGS, '--import', 'tsx', path.join(__dirname, 'ingest-publisher.ts'), config], {
     env: { ...process.env, TSX_TSCONFIG_PATH: path.join(__dirname, '..', '..', 'server', 'tsconfig.json') },
   });
   child.stderr.on('data', (chunk) => process.stderr.write(chunk));
@@ -153,7 +155,7 @@ async function main(): Promise<void> {
     for (let i = 0; i < DEVICES; i++) devices.push(await createDevice(db.dataSource, placement));
     const port = await freePort();
     const { args, env } = nodeArgsFor('broker/main');
-    const broker = startProcess('broker', process.execPath, args, { ...env, DATABASE_URL: db.url, MQTT_PORT: String(port), MQTT_INGEST_PASSWORD: TEST_INGEST.password, LOG_LEVEL: 'warn' });
+    const broker = startProcess('broker', process.execPath, [...PROFILE_ARGS, ...args], { ...env, DATABASE_URL: db.url, MQTT_PORT: String(port), MQTT_INGEST_PASSWORD: TEST_INGEST.password, LOG_LEVEL: 'warn' });
     processes.push(broker);
     await waitFor('starting', broker, () => tcpOpen(port));
     const url = `mqtt://127.0.0.1:${port}`;

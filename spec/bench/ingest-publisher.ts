@@ -60,27 +60,25 @@ function payloadFor(link: Link, seq: number, run: Run): string {
   return `{"sensor":"${link.deviceId}","seq":${seq},"at":"${new Date(atMs).toISOString()}","fresh_food":${freshFoodC},"freezer":-18.5,"battery_v":3.01,"door":"closed"}`;
 }
 
+/**
+ * Each connection publishes its share in its own loop (round-robin over one loop would
+ * stall every sensor behind the one whose window is full). A paced run gives reading k of
+ * sensor i the slot (k · sensors + i) / rate.
+ */
+async function linkLoop(link: Link, index: number, sensors: number, run: Run, startedMs: number): Promise<void> {
+  for (let k = 0; k * sensors + index < run.count; k++) {
+    if (run.ratePerS) {
+      const aheadMs = startedMs + ((k * sensors + index) / run.ratePerS) * 1000 - Date.now();
+      if (aheadMs >= 1) await sleep(aheadMs);
+    }
+    await send(link, payloadFor(link, run.firstSeq + k, run), run.window);
+  }
+  while (link.inFlight > 0) await new Promise<void>((resolve) => link.waiters.push(resolve));
+}
+
 async function publishRun(links: Link[], run: Run): Promise<{ publishMs: number }> {
   const startedMs = Date.now();
-  const perDevice = Math.ceil(run.count / links.length);
-  // Paced runs send in 10 ms slices so the rate holds without a timer per message.
-  const sliceMs = 10;
-  let sent = 0;
-  for (let round = 0; round < perDevice && sent < run.count; round++) {
-    for (const link of links) {
-      if (sent >= run.count) break;
-      await send(link, payloadFor(link, run.firstSeq + round, run), run.window);
-      sent++;
-      if (run.ratePerS && sent % Math.max(1, Math.round((run.ratePerS * sliceMs) / 1000)) === 0) {
-        const dueMs = startedMs + (sent / run.ratePerS) * 1000;
-        const aheadMs = dueMs - Date.now();
-        if (aheadMs > 0) await sleep(aheadMs);
-      }
-    }
-  }
-  await Promise.all(links.map(async (link) => {
-    while (link.inFlight > 0) await new Promise<void>((resolve) => link.waiters.push(resolve));
-  }));
+  await Promise.all(links.map((link, index) => linkLoop(link, index, links.length, run, startedMs)));
   return { publishMs: Date.now() - startedMs };
 }
 
