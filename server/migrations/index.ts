@@ -3,5 +3,6 @@ import { CoreSchema1764633600000 } from './1764633600000-core-schema';
 import { TelemetryStorage1796163938389 } from './1796163938389-telemetry-storage';
 import { Accounts1796164600000 } from './1796164600000-accounts';
 import { Monitor1796170000000 } from './1796170000000-monitor';
+import { LoggerFilesAndDetectionSettings1796190000000 } from './1796190000000-logger-files-and-detection-settings';
 
-export const MIGRATIONS = [CoreSchema1764633600000, TelemetryStorage1796163938389, Accounts1796164600000, Monitor1796170000000];
+export const MIGRATIONS = [CoreSchema1764633600000, TelemetryStorage1796163938389, Accounts1796164600000, Monitor1796170000000, LoggerFilesAndDetectionSettings1796190000000];
