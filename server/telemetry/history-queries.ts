@@ -1,6 +1,6 @@
 import type { DataSource } from 'typeorm';
 import type { HistoryEnvelopePoint, HistoryPoint, ProbeHistory } from '../../shared/api/telemetry';
-import type { Probe } from '../../shared/domain';
+import type { ApplianceStyle, Probe } from '../../shared/domain';
 
 /** Same origin as the rollups (server/ingest/store.ts), so merged buckets line up with stored ones. */
 const BUCKET_ORIGIN = `TIMESTAMPTZ '2000-01-01 00:00:00+00'`;
@@ -18,14 +18,12 @@ const emptySeries = (withEnvelope: boolean): ProbeSeries => ({
   freezer: { points: [], envelope: withEnvelope ? [] : null },
 });
 
-/** Readings per probe in the range, from the hourly rollups (an upper bound at the edges). */
+/** Readings per probe in the range, from the hourly rollups (an upper bound at the edges). One index range scan. */
 export async function countRaw(db: DataSource, range: Range): Promise<number> {
   const [row] = await db.query(
-    `SELECT coalesce(max(n), 0)::int AS n FROM (
-       SELECT sum(fresh_food_count) AS n FROM reading_rollup_1h WHERE appliance_id = $1 AND bucket >= date_bin('1 hour', $2::timestamptz, ${BUCKET_ORIGIN}) AND bucket < $3
-       UNION ALL
-       SELECT sum(freezer_count) FROM reading_rollup_1h WHERE appliance_id = $1 AND bucket >= date_bin('1 hour', $2::timestamptz, ${BUCKET_ORIGIN}) AND bucket < $3
-     ) counts`,
+    `SELECT coalesce(greatest(sum(fresh_food_count), sum(freezer_count)), 0)::int AS n
+       FROM reading_rollup_1h
+      WHERE appliance_id = $1 AND bucket >= date_bin('1 hour', $2::timestamptz, ${BUCKET_ORIGIN}) AND bucket < $3`,
     [range.applianceId, new Date(range.fromMs), new Date(range.toMs)],
   );
   return row.n;
@@ -82,11 +80,24 @@ export interface SensorLiveness {
   intervalSeconds: number;
 }
 
-/** The appliance's current sensor (newest, not archived), if it has one. */
-export async function currentSensor(db: DataSource, applianceId: string): Promise<SensorLiveness | null> {
+export interface ApplianceMeta {
+  style: ApplianceStyle;
+  /** The appliance's current sensor (newest, not archived), if it has one. */
+  sensor: SensorLiveness | null;
+}
+
+/** The appliance's style and current sensor in one round trip; null when there is no such appliance. */
+export async function applianceMeta(db: DataSource, applianceId: string): Promise<ApplianceMeta | null> {
   const [row] = await db.query(
-    `SELECT last_seen_at, interval_seconds FROM sensor WHERE appliance_id = $1 AND archived_at IS NULL ORDER BY created_at DESC LIMIT 1`,
+    `SELECT a.style, s.last_seen_at, s.interval_seconds
+       FROM appliance a
+       LEFT JOIN LATERAL (
+         SELECT last_seen_at, interval_seconds FROM sensor WHERE appliance_id = a.id AND archived_at IS NULL ORDER BY created_at DESC LIMIT 1
+       ) s ON true
+      WHERE a.id = $1`,
     [applianceId],
   );
-  return row ? { lastSeenAtMs: row.last_seen_at ? new Date(row.last_seen_at).getTime() : null, intervalSeconds: row.interval_seconds } : null;
+  if (!row) return null;
+  const sensor = row.interval_seconds === null ? null : { lastSeenAtMs: row.last_seen_at ? new Date(row.last_seen_at).getTime() : null, intervalSeconds: row.interval_seconds };
+  return { style: row.style, sensor };
 }

@@ -1,9 +1,9 @@
 import type { DataSource } from 'typeorm';
 import type { ApplianceHistory, ProbeHistory } from '../../shared/api/telemetry';
-import { probesOf, type ApplianceStyle, type Probe } from '../../shared/domain';
+import { probesOf, type Probe } from '../../shared/domain';
 import { badRequest, notFound } from '../errors';
 import { DEFAULT_MAX_POINTS, planAuto, planLttb, type HistoryPlan } from './history-resolution';
-import { countRaw, currentSensor, rawSeries, rollupSeries, type ProbeSeries, type Range } from './history-queries';
+import { applianceMeta, countRaw, rawSeries, rollupSeries, type ProbeSeries, type Range, type SensorLiveness } from './history-queries';
 import { isSilent } from './liveness';
 import { lttb } from './lttb';
 
@@ -37,9 +37,9 @@ export class HistoryService<Actor> {
   async applianceHistory(actor: Actor, applianceId: string, query: HistoryQuery): Promise<ApplianceHistory> {
     await this.access.assertCanReadAppliance(actor, applianceId);
     const range = this.checkRange(applianceId, query);
-    const style = await this.styleOf(applianceId);
     const maxPoints = query.maxPoints ?? DEFAULT_MAX_POINTS;
-    const rawPerProbe = await countRaw(this.db, range);
+    const [meta, rawPerProbe] = await Promise.all([applianceMeta(this.db, applianceId), countRaw(this.db, range)]);
+    if (!meta) throw notFound('appliance');
     const plan = query.method === 'lttb' ? planLttb(range.toMs - range.fromMs, rawPerProbe) : planAuto(range.toMs - range.fromMs, rawPerProbe, maxPoints);
     const series = await this.fetch(plan, range);
     if (plan.resolution === 'lttb') {
@@ -55,8 +55,8 @@ export class HistoryService<Actor> {
       resolution: plan.resolution,
       source: plan.source,
       bucketMs: plan.bucketMs,
-      probes: this.pick(series, probesOf(style)),
-      sensor: await this.liveness(applianceId),
+      probes: this.pick(series, probesOf(meta.style)),
+      sensor: this.liveness(meta.sensor),
     };
   }
 
@@ -64,12 +64,6 @@ export class HistoryService<Actor> {
     if (!(query.toMs > query.fromMs)) throw badRequest('`to` must be after `from`');
     if (query.toMs - query.fromMs > MAX_RANGE_MS) throw badRequest('a history range is at most ten years');
     return { applianceId, fromMs: query.fromMs, toMs: query.toMs };
-  }
-
-  private async styleOf(applianceId: string): Promise<ApplianceStyle> {
-    const [row] = await this.db.query('SELECT style FROM appliance WHERE id = $1', [applianceId]);
-    if (!row) throw notFound('appliance');
-    return row.style;
   }
 
   private fetch(plan: HistoryPlan, range: Range): Promise<ProbeSeries> {
@@ -83,8 +77,7 @@ export class HistoryService<Actor> {
     return Object.fromEntries(probes.map((probe) => [probe, series[probe]]));
   }
 
-  private async liveness(applianceId: string): Promise<ApplianceHistory['sensor']> {
-    const sensor = await currentSensor(this.db, applianceId);
+  private liveness(sensor: SensorLiveness | null): ApplianceHistory['sensor'] {
     if (!sensor) return null;
     return {
       lastSeenAt: sensor.lastSeenAtMs === null ? null : new Date(sensor.lastSeenAtMs).toISOString(),
