@@ -16,6 +16,7 @@ import { healthRouter } from './routes/health';
 import { createInventory } from './routes/inventory';
 import { webAppRoutes, type WebAppRouteDeps } from './routes/web-app';
 import { HealthService, databaseProbe, type ComponentProbe } from './services/health';
+import type { WorkOrders } from './work-orders/create';
 
 /** What the app is built from; specs pass their own (a throwaway database, a fake broker probe). */
 export interface AppDeps {
@@ -28,6 +29,8 @@ export interface AppDeps {
   accounts?: AccountsOptions;
   /** The in-process event bus the live feed forwards; without one the feed stays quiet. */
   bus?: EventBus;
+  /** Service requests, work orders, contractors and the tenant's side (server/work-orders/create.ts). */
+  workOrders?: Pick<WorkOrders, 'routes' | 'services'>;
   /** Service history, repair rule and heartbeat of the web app's pages; defaults otherwise. */
   webApp?: Pick<WebAppRouteDeps, 'serviceHistory' | 'repairRule' | 'heartbeatMs'>;
 }
@@ -108,17 +111,20 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api', ...accounts.middleware);
   routes.mount(app, ...accounts.routes);
   routes.mount(app, ...createInventory({ dataSource: deps.dataSource, logger }).routes);
+  if (deps.workOrders) routes.mount(app, ...deps.workOrders.routes);
 
   const web = webAppRoutes({
     dataSource: deps.dataSource,
     bus: deps.bus ?? new EventBus(logger),
-    scope: accounts.services.scope,
+    // With work orders, contractors reach the units of their jobs (WorkOrderScope).
+    scope: deps.workOrders?.services.scope ?? accounts.services.scope,
     clock: deps.accounts?.clock ?? systemClock,
     logger,
     actorById: (id) => accounts.services.users.actorById(id),
     ...deps.webApp,
   });
   routes.mount(app, ...web.groups);
+  app.locals.liveEvents = web.live;
 
   app.use('/api', apiNotFound);
   app.use(clientApp(config.clientDir));

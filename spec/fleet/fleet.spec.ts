@@ -1,6 +1,6 @@
 import type { FleetAppliance, FleetOverview } from '../../shared/api/fleet';
 import { Browser } from '../auth/support/browser';
-import { createFleetWorld, type FleetWorld } from './support/fleet-world';
+import { SETUP_TIMEOUT_MS, createFleetWorld, type FleetWorld } from './support/fleet-world';
 
 /**
  * GET /api/fleet against a small hand-made organization: two properties, a second
@@ -56,8 +56,8 @@ describe('GET /api/fleet', () => {
 
     const person = await seed.person('manager', org, null, 'Fleet Manager');
     manager = await world.signIn(person.email);
-  });
-  afterAll(async () => world.close());
+  }, SETUP_TIMEOUT_MS);
+  afterAll(async () => world.close(), SETUP_TIMEOUT_MS);
 
   async function fleet(query = ''): Promise<FleetOverview> {
     const res = await manager.get(`/api/fleet${query}`);

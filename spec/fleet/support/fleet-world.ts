@@ -16,6 +16,8 @@ import { ManualClock } from '../../auth/support/manual-clock';
 import { createTestDatabase, type TestDatabase } from '../../support/test-db';
 
 export const SPEC_NOW = '2026-03-02T15:00:00Z';
+/** A fresh database is migrated in beforeAll: allow for a busy machine. */
+export const SETUP_TIMEOUT_MS = 60_000;
 const HASH_ROUNDS = 4;
 
 export interface FleetWorld {
@@ -187,7 +189,7 @@ export class Seeder {
   }
 }
 
-function passwordOf(email: string): string {
+export function passwordOf(email: string): string {
   return `pass-${email}-phrase`;
 }
 
