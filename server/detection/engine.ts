@@ -15,7 +15,7 @@ import { closeFinding, countFreshAbove, noteAboveHistory, openFinding, updateFin
 import { addToBucket, adaptBaseline, bucketMs, closeBucket, finishLearning, learnLevel, resetWindow } from './level';
 import { judgeOverTemp, overTempPatch } from './over-temperature';
 import { judgeValue, recordVerdict } from './probe-check';
-import { cyclePeriodMinutes, defrostRhythm, doorOpeningsPerDay, trackCycle, trackDoor, trackExcursion, transientLimitMinutes } from './rhythm';
+import { cyclePeriodMinutes, doorOpeningsPerDay, trackCycle, trackDoor, trackExcursion, transientLimitMinutes } from './rhythm';
 import { DEFAULT_SETTINGS, type DetectionSettings } from './settings';
 import { currentCauses, forgetEvidence } from './signature';
 import { newEngineState, STATE_VERSION, type EngineState, type ProbeState } from './state';
@@ -64,6 +64,7 @@ export class DetectionEngine {
     const events = this.ctx.events;
     events.length = 0;
     const gapMs = s.lastAtMs === null ? 0 : atMs - s.lastAtMs;
+    s.nowMs = atMs;
     this.noteTime(atMs, gapMs);
     hot.trackDoor(s, reading.doorOpen, atMs);
     const bucket = Math.floor(atMs / this.bucketLengthMs);
@@ -232,7 +233,7 @@ export class DetectionEngine {
 
   learned(): LearnedNormal {
     const s = this.state;
-    const rhythm = defrostRhythm(s.defrosts);
+    const rhythm = s.defrostRhythm;
     const byProbe = <T>(pick: (p: ProbeState) => T | null) => ({
       fresh_food: s.probes.find((p) => p.probe === 'fresh_food') ? pick(s.probes.find((p) => p.probe === 'fresh_food')!) : null,
       freezer: s.probes.find((p) => p.probe === 'freezer') ? pick(s.probes.find((p) => p.probe === 'freezer')!) : null,
@@ -256,11 +257,11 @@ export class DetectionEngine {
   }
 
   defrostIntervalHours(): number | null {
-    return defrostRhythm(this.state.defrosts).intervalHours;
+    return this.state.defrostRhythm.intervalHours;
   }
 
   defrostRiseC(): number | null {
-    return defrostRhythm(this.state.defrosts).riseC;
+    return this.state.defrostRhythm.riseC;
   }
 
   doorOpeningsPerDay(): number | null {

@@ -44,7 +44,7 @@ export function openFinding(state: EngineState, draft: NewFinding, events: Engin
   finding.minutesAbove4c = minutesAboveSince(state, finding.id);
   state.findings.push(finding);
   state.lastUpdateAtMs[finding.id] = draft.detectedAtMs;
-  events.push({ type: 'opened', finding: { ...finding, probableCauses: [...finding.probableCauses] } });
+  events.push({ type: 'opened', atMs: draft.detectedAtMs, finding: { ...finding, probableCauses: [...finding.probableCauses] } });
   return finding;
 }
 
@@ -63,7 +63,7 @@ export function closeFinding(state: EngineState, id: string | null, endedAtMs: n
   delete state.lastUpdateAtMs[finding.id];
   delete state.aboveBaseByFinding[finding.id];
   state.closedFindings++;
-  events.push({ type: 'closed', finding });
+  events.push({ type: 'closed', atMs: state.nowMs ?? endedAtMs, finding });
 }
 
 export interface FindingPatch {
@@ -103,7 +103,7 @@ export function updateFinding(
   const due = atMs - (state.lastUpdateAtMs[finding.id] ?? 0) >= settings.updateEveryMinutes * MINUTE_MS;
   if (material || (due && (minutesChanged || patch.summary))) {
     state.lastUpdateAtMs[finding.id] = atMs;
-    events.push({ type: 'updated', finding: { ...finding, probableCauses: [...finding.probableCauses] } });
+    events.push({ type: 'updated', atMs, finding: { ...finding, probableCauses: [...finding.probableCauses] } });
   }
 }
 

@@ -64,8 +64,7 @@ export class IncidentTracker {
   /** Takes one engine event; the event's own times drive the incident (no clock). */
   handle(event: EngineEvent): IncidentEvent[] {
     const finding = event.finding;
-    const atMs = event.type === 'closed' ? (finding.endedAtMs ?? finding.detectedAtMs) : finding.detectedAtMs;
-    const out = this.tick(atMs);
+    const out = this.tick(event.atMs);
     const lane = laneOf(finding);
     let incident = this.state.open.find((i) => i.lane === lane);
     if (!incident) {

@@ -13,12 +13,11 @@ const MINUTE_MS = 60_000;
 const hot = { lambdaForGap, pushRing };
 const HOUR_MS = 60 * MINUTE_MS;
 const PERIOD_RING = 16;
-const DEFROST_RING = 12;
+const DEFROST_RING = 16;
 const MIN_CYCLE_MIN = 8;
 const MAX_CYCLE_MIN = 600;
 /** A defrost keeps the air up for 20 minutes or more; the air recovers from a door opening faster. */
 const DEFROST_MIN_MINUTES = 20;
-const NORMAL_DEFROSTS = 2;
 
 // Readings mostly come at one interval: the weight for the last gap is kept, not recomputed.
 let lastGapMs = -1;
@@ -42,6 +41,7 @@ export function trackCycle(r: ProbeRhythm, valueC: number, atMs: number, gapMs: 
   }
   r.smoothC += smoothingWeight(gapMs, settings.cycleSmoothingMinutes * MINUTE_MS) * (valueC - r.smoothC);
   const deviationC = valueC - r.smoothC;
+  if (r.side > 0 && deviationC > r.halfCyclePeakC) r.halfCyclePeakC = deviationC;
   if (r.side <= 0 && deviationC > settings.cycleHysteresisC) {
     if (r.side < 0 && r.lastUpCrossingMs !== null) {
       const periodMin = (atMs - r.lastUpCrossingMs) / MINUTE_MS;
@@ -50,8 +50,24 @@ export function trackCycle(r: ProbeRhythm, valueC: number, atMs: number, gapMs: 
     r.side = 1;
     r.lastUpCrossingMs = atMs;
   } else if (r.side >= 0 && deviationC < -settings.cycleHysteresisC) {
+    if (r.side > 0) noteCycleSwing(r);
     r.side = -1;
+    r.halfCyclePeakC = 0;
   }
+}
+
+const SWING_WEIGHT = 0.1;
+
+/** Typical height of a cycle's peak above the running mean (median-like: big peaks count little). */
+function noteCycleSwing(r: ProbeRhythm): void {
+  const peak = r.halfCyclePeakC;
+  if (r.cycleSwingC === null) r.cycleSwingC = peak;
+  else r.cycleSwingC += SWING_WEIGHT * Math.sign(peak - r.cycleSwingC) * Math.min(Math.abs(peak - r.cycleSwingC), 0.5);
+}
+
+/** A rise counts as an excursion only above the unit's own compressor swing. */
+export function excursionThresholdC(r: ProbeRhythm, settings: DetectionSettings): number {
+  return Math.max(settings.excursionRiseC, r.cycleSwingC !== null ? 1.5 * r.cycleSwingC + 0.5 : 0);
 }
 
 export function cyclePeriodMinutes(r: ProbeRhythm, intervalMin: number | null): number | null {
@@ -76,8 +92,9 @@ export function trackExcursion(
   settings: DetectionSettings,
   recordsDefrost: boolean,
 ): void {
+  const thresholdC = excursionThresholdC(r, settings);
   if (r.excursionStartMs === null) {
-    if (referenceC === null || valueC <= referenceC + settings.excursionRiseC) return;
+    if (referenceC === null || valueC <= referenceC + thresholdC) return;
     r.excursionStartMs = atMs;
     r.excursionReferenceC = referenceC;
     r.excursionPeakC = valueC - referenceC;
@@ -93,7 +110,7 @@ export function trackExcursion(
     r.excursionStartMs = null; // a long warm spell is not a defrost; the trend logic judges it
     return;
   }
-  if (valueC >= r.excursionReferenceC + settings.excursionRiseC / 2) return;
+  if (valueC >= r.excursionReferenceC + thresholdC / 2) return;
   if (recordsDefrost && !r.excursionDoor && durationMin >= DEFROST_MIN_MINUTES && durationMin <= settings.defrostMaxMinutes) {
     recordDefrost(state, { atMs: r.excursionStartMs, riseC: r.excursionPeakC, durationMin }, settings);
   }
@@ -105,14 +122,21 @@ function recordDefrost(state: EngineState, event: DefrostEvent, settings: Detect
   if (last && event.atMs - last.atMs < settings.defrostMinSpacingHours * HOUR_MS) {
     // Two rises close together are one defrost and its aftermath (or a door): keep the larger.
     if (event.riseC > last.riseC) state.defrosts[state.defrosts.length - 1] = { ...event, atMs: last.atMs };
-    state.defrostDurationMin = defrostRhythm(state.defrosts).durationMinutes;
+    learnDefrostRhythm(state);
     return;
   }
   state.defrosts.push(event);
   if (state.defrosts.length > DEFROST_RING) state.defrosts.shift();
-  state.defrostDurationMin = defrostRhythm(state.defrosts).durationMinutes;
-  // The normal size of a defrost rise is fixed from the first ones, before any fault can shrink it.
-  if (state.normalDefrostRiseC === null && state.defrosts.length >= NORMAL_DEFROSTS) state.normalDefrostRiseC = defrostRhythm(state.defrosts).riseC;
+  learnDefrostRhythm(state);
+}
+
+/** Refits the rhythm once per recorded rise and keeps it in the state for the hot path. */
+function learnDefrostRhythm(state: EngineState): void {
+  const rhythm = defrostRhythm(state.defrosts);
+  state.defrostRhythm = rhythm;
+  state.defrostDurationMin = rhythm.durationMinutes;
+  // The normal size of a defrost rise is fixed once the rhythm is first known, before a fault can shrink it.
+  if (state.normalDefrostRiseC === null && rhythm.riseC !== null) state.normalDefrostRiseC = rhythm.riseC;
 }
 
 /** Longest excursion still treated as a brief transient: a little longer than the unit's own defrost. */
@@ -129,16 +153,58 @@ export interface DefrostRhythm {
   lastAtMs: number | null;
 }
 
+/**
+ * The defrost timer is strictly periodic while door openings and other rises are not: the
+ * interval is the period T whose comb of slots best fits the recorded rises (hits minus slots
+ * left empty), tried over every spacing between two rises.
+ */
+function combFit(defrosts: readonly DefrostEvent[], periodMs: number): DefrostEvent[] {
+  const toleranceMs = Math.max(0.5 * HOUR_MS, 0.04 * periodMs);
+  let best: DefrostEvent[] = [];
+  for (const anchor of defrosts) {
+    const hits = defrosts.filter((d) => {
+      const slots = (d.atMs - anchor.atMs) / periodMs;
+      return Math.abs(slots - Math.round(slots)) * periodMs <= toleranceMs;
+    });
+    if (hits.length > best.length) best = hits;
+  }
+  return best;
+}
+
+const MIN_COMB_HITS = 3;
+const MAX_DEFROST_INTERVAL_MS = 96 * HOUR_MS;
+
 export function defrostRhythm(defrosts: readonly DefrostEvent[]): DefrostRhythm {
   const lastAtMs = defrosts.length ? defrosts[defrosts.length - 1].atMs : null;
-  if (defrosts.length < 2) return { intervalHours: null, riseC: null, durationMinutes: null, lastAtMs };
-  const intervals: number[] = [];
-  for (let i = 1; i < defrosts.length; i++) intervals.push((defrosts[i].atMs - defrosts[i - 1].atMs) / HOUR_MS);
+  let bestScore = 0;
+  let bestHits: DefrostEvent[] = [];
+  let bestPeriodMs = 0;
+  for (let i = 0; i < defrosts.length; i++) {
+    for (let j = i + 1; j < defrosts.length; j++) {
+      const periodMs = defrosts[j].atMs - defrosts[i].atMs;
+      if (periodMs < 4 * HOUR_MS || periodMs > MAX_DEFROST_INTERVAL_MS) continue;
+      const hits = combFit(defrosts, periodMs);
+      const span = hits[hits.length - 1].atMs - hits[0].atMs;
+      const empty = Math.round(span / periodMs) + 1 - hits.length;
+      const score = hits.length - empty;
+      if (hits.length >= MIN_COMB_HITS && (score > bestScore || (score === bestScore && periodMs < bestPeriodMs))) {
+        bestScore = score;
+        bestHits = hits;
+        bestPeriodMs = periodMs;
+      }
+    }
+  }
+  if (bestHits.length < MIN_COMB_HITS) return { intervalHours: null, riseC: null, durationMinutes: null, lastAtMs };
+  const steps: number[] = [];
+  for (let i = 1; i < bestHits.length; i++) {
+    const gap = bestHits[i].atMs - bestHits[i - 1].atMs;
+    steps.push(gap / Math.max(1, Math.round(gap / bestPeriodMs)) / HOUR_MS);
+  }
   return {
-    intervalHours: median(intervals),
-    riseC: median(defrosts.map((d) => d.riseC)),
-    durationMinutes: median(defrosts.map((d) => d.durationMin)),
-    lastAtMs,
+    intervalHours: median(steps),
+    riseC: median(bestHits.map((d) => d.riseC)),
+    durationMinutes: median(bestHits.map((d) => d.durationMin)),
+    lastAtMs: bestHits[bestHits.length - 1].atMs,
   };
 }
 

@@ -106,7 +106,7 @@ export const SETTING_DOCS: Record<keyof DetectionSettings, SettingDoc & { value:
   spikyRatio: { value: 1.5, unit: '×', reason: 'readings spiking this much more than usual: room air gets in (door seal); corroborates a smaller warming (common practice)' },
   sustainMinutes: { value: 45, unit: 'min', reason: 'the rise must last this long above the threshold before it is a trend' },
   slopeWindowMinutes: { value: 120, unit: 'min', reason: 'window of the robust (Theil–Sen) slope that tells a recovering grocery load from a failure' },
-  recoveringSlopeCPerHour: { value: -0.3, unit: '°C/h', reason: 'a level falling faster than this is recovering by itself and is not a trend' },
+  recoveringSlopeCPerHour: { value: -0.1, unit: '°C/h', reason: 'a level no longer rising (its slope at or below this) is a warm load being pulled down, not a trend; a failing part keeps the level climbing or flat (common practice)' },
   forecastWindowMinutes: { value: 180, unit: 'min', reason: 'least-squares window of the crossing forecast' },
   forecastHorizonHours: { value: 72, unit: 'h', reason: 'crossings forecast further ahead than this are not shown' },
   noCoolingFreshRiseC: { value: 4, unit: '°C', reason: 'fresh food this far above normal and still rising is heading for room temperature (common practice)' },

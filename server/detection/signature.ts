@@ -3,7 +3,7 @@ import type { Probe } from '../../shared/domain';
 import { HOUR_MS, isTrusted, probeState, type EngineContext } from './context';
 import { causesFrom, rememberEvidence, scoreCauses, type ProbeSignature, type Signature } from './diagnosis';
 import { recentRiseC, recentSlopeCPerHour, residualC, robustSlopeCPerHour } from './level';
-import { defrostRhythm, transientLimitMinutes } from './rhythm';
+import { transientLimitMinutes } from './rhythm';
 import type { ProbeState } from './state';
 import type { ProbableCause } from './types';
 
@@ -42,7 +42,7 @@ function probeSignature(ctx: EngineContext, probe: Probe): ProbeSignature | null
 
 /** How overdue the next defrost rise is, in learned intervals (null before a rhythm is known). */
 function defrostOverdueRatio(ctx: EngineContext): number | null {
-  const rhythm = defrostRhythm(ctx.state.defrosts);
+  const rhythm = ctx.state.defrostRhythm;
   const nowMs = ctx.state.lastAtMs;
   if (rhythm.intervalHours === null || rhythm.lastAtMs === null || nowMs === null) return null;
   return (nowMs - rhythm.lastAtMs) / HOUR_MS / rhythm.intervalHours;

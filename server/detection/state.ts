@@ -79,6 +79,9 @@ export interface ProbeRhythm {
   side: number;
   lastUpCrossingMs: number | null;
   periodsMin: number[];
+  /** Highest reading above the running mean in the current half cycle, and its running typical size. */
+  halfCyclePeakC: number;
+  cycleSwingC: number | null;
   excursionStartMs: number | null;
   excursionPeakC: number;
   excursionReferenceC: number;
@@ -110,6 +113,8 @@ export interface EngineState {
   style: ApplianceStyle;
   firstAtMs: number | null;
   lastAtMs: number | null;
+  /** Time of the reading being processed. */
+  nowMs: number | null;
   bucketIndex: number | null;
   lastFreshAbove: boolean;
   ready: boolean;
@@ -117,6 +122,7 @@ export interface EngineState {
   defrosts: DefrostEvent[];
   /** Median duration of the recorded defrost rises, kept up to date for the hot path. */
   defrostDurationMin: number | null;
+  defrostRhythm: { intervalHours: number | null; riseC: number | null; durationMinutes: number | null; lastAtMs: number | null };
   /** Median rise of the defrosts seen while the unit was learning its normal. */
   normalDefrostRiseC: number | null;
   /** Running estimate of the reading interval (minutes). */
@@ -190,6 +196,8 @@ function newProbe(probe: Probe): ProbeState {
       side: 0,
       lastUpCrossingMs: null,
       periodsMin: [],
+      halfCyclePeakC: 0,
+      cycleSwingC: null,
       excursionStartMs: null,
       excursionPeakC: 0,
       excursionReferenceC: 0,
@@ -206,12 +214,14 @@ export function newEngineState(style: ApplianceStyle, probes: readonly Probe[]):
     style,
     firstAtMs: null,
     lastAtMs: null,
+    nowMs: null,
     bucketIndex: null,
     lastFreshAbove: false,
     ready: false,
     probes: probes.map(newProbe),
     defrosts: [],
     defrostDurationMin: null,
+    defrostRhythm: { intervalHours: null, riseC: null, durationMinutes: null, lastAtMs: null },
     normalDefrostRiseC: null,
     intervalMin: null,
     doorOpen: false,

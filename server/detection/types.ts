@@ -41,6 +41,8 @@ export interface Finding {
 export type EngineEventType = 'opened' | 'updated' | 'closed';
 export interface EngineEvent {
   type: EngineEventType;
+  /** Time of the reading that produced the event. */
+  atMs: number;
   finding: Finding;
 }
 

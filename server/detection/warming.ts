@@ -12,7 +12,7 @@
 import type { Probe } from '../../shared/domain';
 import { closeFinding, findOpen, openFinding } from './finding-book';
 import { isTrusted, limitOf, minRiseOf, type EngineContext } from './context';
-import { forecastCrossingMs, residualC, robustSlopeCPerHour } from './level';
+import { forecastCrossingMs, recentSlopeCPerHour, residualC, robustSlopeCPerHour } from './level';
 import { currentCauses } from './signature';
 import type { ProbeState } from './state';
 import { cusumStep } from './stats/cusum';
@@ -21,6 +21,7 @@ import { noCoolingSummary, warmingSummary } from './summaries';
 const MINUTE_MS = 60_000;
 
 const CUSUM_CAP_FACTOR = 4;
+const RECOVERY_WINDOW_MINUTES = 90;
 
 const SPREAD_MULTIPLE = 3;
 const CORROBORATED_SHARE = 0.6;
@@ -90,9 +91,10 @@ export function judgeWarming(ctx: EngineContext, p: ProbeState, bucketEndMs: num
   // A probe with an open sensor fault never starts a repair finding by itself.
   if (!signalled || t.risingSinceMs === null || p.validation.faultReason !== null) return;
   if (bucketEndMs - t.risingSinceMs < ctx.settings.sustainMinutes * MINUTE_MS) return;
-  const slope = robustSlopeCPerHour(p.level, ctx.settings.slopeWindowMinutes);
-  if (slope !== null && slope <= ctx.settings.recoveringSlopeCPerHour) return;
-  openWarming(ctx, p, slope, atMs);
+  // The raw quarter-hours, not the lagging level, show a warm load already being pulled down.
+  const rawSlope = recentSlopeCPerHour(p.level, RECOVERY_WINDOW_MINUTES, atMs);
+  if (rawSlope !== null && rawSlope <= ctx.settings.recoveringSlopeCPerHour) return;
+  openWarming(ctx, p, robustSlopeCPerHour(p.level, ctx.settings.slopeWindowMinutes), atMs);
 }
 
 function openWarming(ctx: EngineContext, p: ProbeState, slope: number | null, atMs: number): void {
