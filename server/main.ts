@@ -9,6 +9,8 @@ import { startIngestInServer } from './ingest/start';
 import { EventBus } from './events/bus';
 import { startMail } from './mail/setup';
 import { startMonitor } from './monitor/start';
+import { startObjectStorage } from './storage/setup';
+import { createWorkOrders } from './work-orders/create';
 import { brokerProbe } from './services/broker-probe';
 
 /** Starts the server: connects, migrates, listens; stops cleanly on SIGINT/SIGTERM. */
@@ -25,7 +27,12 @@ async function main(): Promise<void> {
   const accounts = { mailer: mail.mailer, devInbox, sessionSecret: loadSessionSecret(process.env, config.dataDir) };
   // The monitor publishes on the bus; the web app's live feed forwards it.
   const bus = new EventBus(logger);
-  const app = createApp({ config, dataSource: AppDataSource, logger, brokerProbe: brokerProbe(config.mqttUrl), version: packageVersion(), accounts, bus });
+  const storage = await startObjectStorage(process.env, { dataDir: config.dataDir });
+  logger.info(storage.description);
+  // Requests and work orders: opened from the monitor's incidents on the bus, timers on a sweeper.
+  const workOrders = createWorkOrders({ dataSource: AppDataSource, publicUrl: config.publicUrl, logger, bus, clock: systemClock, mailer: mail.mailer, store: storage.store });
+  await workOrders.start();
+  const app = createApp({ config, dataSource: AppDataSource, logger, brokerProbe: brokerProbe(config.mqttUrl), version: packageVersion(), accounts, bus, workOrders });
   const server = app.listen(config.port, config.host, () => {
     logger.info(`listening on ${config.publicUrl}`);
     if (devInbox) logger.info(`dev inbox (e-mail sent by the server) at ${config.publicUrl}/dev/inbox`);
@@ -40,6 +47,8 @@ async function main(): Promise<void> {
     server.closeAllConnections();
     await ingest?.stop();
     await monitor.stop();
+    await workOrders.stop();
+    await storage.close();
     await mail.close();
     await AppDataSource.destroy();
     process.exit(0);
