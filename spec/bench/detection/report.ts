@@ -1,6 +1,6 @@
 /** Turns scenario outcomes into the benchmark's figures and its printed table. */
 import { PropertyCorrelator, type ApplianceFinding } from '../../../server/detection/property-correlator';
-import type { DetectorOutcome, ScenarioOutcome } from './evaluate';
+import { VISIT_AFTER_MS, type DetectorOutcome, type ScenarioOutcome } from './evaluate';
 import { APPLIANCE_FAULTS, DAY_MS, HOUR_MS } from './scenarios';
 
 type Detector = 'engine' | 'thermometer';
@@ -79,11 +79,16 @@ function propertyCases(outcomes: ScenarioOutcome[], detector: Detector): FaultCa
       const first = firsts.length ? { detectedAtMs: Math.min(...firsts), topCauseAtOpen: null, topCauseAtVisit: null, topCauseFinal: null } : null;
       return { fault: 'power-loss', visible, onsetMs, foodAtRiskAtMs, outcome: { first, falseRepair: 0, sensorFaultFound: false } };
     }
+    // The first unit finding alerts the manager; the correlator then names the cause for the property.
     const findings: ApplianceFinding[] = units.flatMap((u) => u.findings.map((finding) => ({ applianceId: u.scenario.id, finding })));
     const episode = correlator.correlate(propertyId, findings, units.length).find((e) => e.finding.detectedAtMs >= onsetMs);
-    const first = episode
-      ? { detectedAtMs: episode.finding.detectedAtMs, topCauseAtOpen: 'power-loss' as const, topCauseAtVisit: 'power-loss' as const, topCauseFinal: 'power-loss' as const }
-      : null;
+    const unitFirsts = units.map((u) => u.engine.first?.detectedAtMs).filter((t): t is number => t !== undefined);
+    const named = (atMs: number) => (episode && episode.finding.detectedAtMs <= atMs ? ('power-loss' as const) : null);
+    const detectedAtMs = unitFirsts.length ? Math.min(...unitFirsts) : null;
+    const first =
+      detectedAtMs === null
+        ? null
+        : { detectedAtMs, topCauseAtOpen: named(detectedAtMs), topCauseAtVisit: named(detectedAtMs + VISIT_AFTER_MS), topCauseFinal: episode ? ('power-loss' as const) : null };
     return { fault: 'power-loss', visible, onsetMs, foodAtRiskAtMs, outcome: { first, falseRepair: 0, sensorFaultFound: false } };
   });
 }
