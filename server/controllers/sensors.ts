@@ -23,5 +23,8 @@ export function sensorsController(sensors: SensorsService) {
     archive: async (req: Request, res: Response) => {
       res.json(await sensors.archive(actorOf(req), id(req)));
     },
+    restore: async (req: Request, res: Response) => {
+      res.json(await sensors.restore(actorOf(req), id(req)));
+    },
   };
 }

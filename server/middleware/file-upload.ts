@@ -32,7 +32,7 @@ export function fileUpload(rule: UploadRule): RequestHandler {
         return next(badRequest(`the upload could not be read (${error.message.toLowerCase()})`));
       }
       if (error) return next(error);
-      if (!req.file) return next(badRequest(`choose a ${rule.what} to upload (form field "${rule.field}")`));
+      if (!req.file) return next(badRequest(`choose the ${rule.what} to upload (form field "${rule.field}")`));
       next();
     });
   };

@@ -11,5 +11,6 @@ export function sensorsRoutes(controller: ReturnType<typeof sensorsController>):
     .get('/:sensorId', inventoryRule('one sensor'), validate(params), controller.get)
     .patch('/:sensorId', inventoryRule('move a sensor to another appliance or change its interval'), validate({ ...params, body: SensorChange }), controller.change)
     .post('/:sensorId/secret', inventoryRule('issue a new one-time device secret'), validate(params), controller.newSecret)
-    .post('/:sensorId/archive', inventoryRule('retire a sensor: the broker refuses it from then on'), validate(params), controller.archive);
+    .post('/:sensorId/archive', inventoryRule('retire a sensor: the broker refuses it from then on'), validate(params), controller.archive)
+    .post('/:sensorId/restore', inventoryRule('bring a retired sensor back (its appliance must have no other sensor)'), validate(params), controller.restore);
 }

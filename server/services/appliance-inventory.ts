@@ -9,7 +9,7 @@ const NATURAL_LABEL = `NULLIF(substring(u.label from '^[0-9]+'), '')::bigint NUL
 
 const SORT_COLUMNS: Record<ApplianceQuery['sort'], (direction: string) => string> = {
   property: (direction) => `lower(p.name) ${direction}, ${NATURAL_LABEL}`,
-  unit: (direction) => `NULLIF(substring(u.label from '^[0-9]+'), '')::bigint ${direction} NULLS LAST, lower(u.label) ${direction}, lower(p.name)`,
+  unit: (direction) => `NULLIF(substring(u.label from '^[0-9]+'), '')::bigint ${direction} ${direction === 'ASC' ? 'NULLS LAST' : 'NULLS FIRST'}, lower(u.label) ${direction}, lower(p.name)`,
   style: (direction) => `a.style ${direction}, lower(p.name), ${NATURAL_LABEL}`,
   installedOn: (direction) => `a.installed_on ${direction} NULLS LAST`,
   createdAt: (direction) => `a.created_at ${direction}`,

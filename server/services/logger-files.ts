@@ -76,8 +76,12 @@ export class LoggerFilesService {
   /** Forgets the file and its analysis; readings already attached stay in the appliance's history. */
   async remove(actor: Actor, loggerFileId: string): Promise<void> {
     const organizationId = organizationOf(actor);
-    const rows = await this.dataSource.query(`DELETE FROM logger_file WHERE id = $1 AND organization_id = $2 RETURNING id`, [loggerFileId, organizationId]);
-    if (!rows.length) throw notFound('logger file');
+    // A SELECT around the DELETE: TypeORM answers a bare DELETE with [rows, count], not rows.
+    const [{ deleted }] = await this.dataSource.query(
+      `WITH gone AS (DELETE FROM logger_file WHERE id = $1 AND organization_id = $2 RETURNING id) SELECT count(*)::int AS deleted FROM gone`,
+      [loggerFileId, organizationId],
+    );
+    if (!deleted) throw notFound('logger file');
   }
 
   async attach(actor: Actor, loggerFileId: string, applianceId: string): Promise<AttachLoggerFileResult> {

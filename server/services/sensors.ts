@@ -55,7 +55,9 @@ export class SensorsService {
     const secretHash = await hashDeviceSecret(secret);
     const deviceId = request.deviceId ?? newDeviceId();
     return this.dataSource.transaction(async (manager) => {
-      await this.requirePairable(manager, organizationId, applianceId);
+      const current = await this.requireActiveAppliance(manager, organizationId, applianceId);
+      if (current && !request.replace) throw conflict(`the appliance already has sensor ${current}: replace it, or archive or move it first`);
+      if (current) await manager.query(`UPDATE sensor SET archived_at = now() WHERE appliance_id = $1 AND archived_at IS NULL`, [applianceId]);
       const [row] = await this.uniqueDevice(deviceId, () =>
         manager.query(`INSERT INTO sensor (device_id, appliance_id, secret_hash, interval_seconds) VALUES ($1, $2, $3, $4) RETURNING id`, [
           deviceId,
@@ -89,7 +91,7 @@ export class SensorsService {
       const current = await this.view(manager, organizationId, sensorId, true);
       if (current.archivedAt) throw conflict('the sensor is archived');
       if (change.applianceId && change.applianceId !== current.applianceId) {
-        await this.requirePairable(manager, organizationId, change.applianceId);
+        await this.requireFreeAppliance(manager, organizationId, change.applianceId);
         await manager.query(`UPDATE sensor SET appliance_id = $2 WHERE id = $1`, [sensorId, change.applianceId]);
       }
       if (change.intervalSeconds !== undefined) await manager.query(`UPDATE sensor SET interval_seconds = $2 WHERE id = $1`, [sensorId, change.intervalSeconds]);
@@ -107,6 +109,19 @@ export class SensorsService {
     });
   }
 
+  /** Brings a retired sensor back, with its old secret, if its appliance is active and has no other sensor. */
+  async restore(actor: Actor, sensorId: string): Promise<SensorView> {
+    const organizationId = organizationOf(actor);
+    return this.dataSource.transaction(async (manager) => {
+      const current = await this.view(manager, organizationId, sensorId, true);
+      if (current.archivedAt) {
+        await this.requireFreeAppliance(manager, organizationId, current.applianceId);
+        await manager.query(`UPDATE sensor SET archived_at = NULL WHERE id = $1`, [sensorId]);
+      }
+      return this.view(manager, organizationId, sensorId);
+    });
+  }
+
   private async view(manager: EntityManager, organizationId: string, sensorId: string, lock = false): Promise<SensorView> {
     if (lock) await manager.query(`SELECT id FROM sensor WHERE id = $1 FOR UPDATE`, [sensorId]);
     const [row] = await manager.query(`${SENSOR_SELECT} WHERE s.id = $1 AND p.organization_id = $2`, [sensorId, organizationId]);
@@ -114,8 +129,8 @@ export class SensorsService {
     return toSensorView(row);
   }
 
-  /** An active appliance of the organization without an active sensor (one sensor carries both probes). */
-  private async requirePairable(manager: EntityManager, organizationId: string, applianceId: string): Promise<void> {
+  /** An active appliance of the organization, locked; answers the device id of its active sensor, if any. */
+  private async requireActiveAppliance(manager: EntityManager, organizationId: string, applianceId: string): Promise<string | null> {
     const [row] = await manager.query(
       `SELECT a.archived_at, (SELECT device_id FROM sensor WHERE appliance_id = a.id AND archived_at IS NULL LIMIT 1) AS paired_device
          FROM appliance a JOIN unit u ON u.id = a.unit_id JOIN property p ON p.id = u.property_id
@@ -124,7 +139,13 @@ export class SensorsService {
     );
     if (!row) throw notFound('appliance');
     if (row.archived_at) throw conflict('the appliance is archived');
-    if (row.paired_device) throw conflict(`the appliance already has sensor ${row.paired_device}: archive or move it first`);
+    return row.paired_device;
+  }
+
+  /** One sensor carries both probes: an appliance takes a second only after the first is archived or moved. */
+  private async requireFreeAppliance(manager: EntityManager, organizationId: string, applianceId: string): Promise<void> {
+    const paired = await this.requireActiveAppliance(manager, organizationId, applianceId);
+    if (paired) throw conflict(`the appliance already has sensor ${paired}: archive or move it first`);
   }
 
   private async uniqueDevice<T>(deviceId: string, write: () => Promise<T>): Promise<T> {

@@ -9,7 +9,7 @@ import { archiveCondition, containsPattern, isoOrNull, isUniqueViolation, organi
 const NATURAL_LABEL = `NULLIF(substring(u.label from '^[0-9]+'), '')::bigint NULLS LAST, lower(u.label)`;
 
 const SORT_COLUMNS: Record<UnitQuery['sort'], (direction: string) => string> = {
-  label: (direction) => `NULLIF(substring(u.label from '^[0-9]+'), '')::bigint ${direction} NULLS LAST, lower(u.label) ${direction}`,
+  label: (direction) => `NULLIF(substring(u.label from '^[0-9]+'), '')::bigint ${direction} ${direction === 'ASC' ? 'NULLS LAST' : 'NULLS FIRST'}, lower(u.label) ${direction}`,
   floor: (direction) => `u.floor ${direction} NULLS LAST, ${NATURAL_LABEL}`,
   createdAt: (direction) => `u.created_at ${direction}`,
 };

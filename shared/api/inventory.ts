@@ -228,11 +228,15 @@ export const DeviceIdSchema = z
   .trim()
   .regex(DEVICE_ID_PATTERN, '3 to 48 letters, digits, "-" or "_", starting with a letter or digit');
 
-/** `POST /api/inventory/appliances/:applianceId/sensor`: without a device id, one is made up. */
+/**
+ * `POST /api/inventory/appliances/:applianceId/sensor`: without a device id, one is made up.
+ * An appliance carries one sensor; `replace` retires the current one (a broken sensor swapped).
+ */
 export const PairSensorRequest = z
   .object({
     deviceId: DeviceIdSchema.optional(),
     intervalSeconds: IntervalSchema.default(SENSOR_INTERVAL_DEFAULT_SECONDS),
+    replace: z.boolean().default(false),
   })
   .strict();
 export type PairSensorRequest = z.infer<typeof PairSensorRequest>;

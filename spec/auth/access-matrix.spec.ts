@@ -4,6 +4,7 @@ import { Scope } from '../../server/auth/scope';
 import type { Browser } from './support/browser';
 import { mountedRoutes } from './support/express-routes';
 import { createWorld, type Fixtures, type Person, type SeededUser, type World } from './support/world';
+import { inventoryMatrixCases, seedInventoryMatrix } from '../inventory/support/access-cases';
 
 /**
  * The access matrix, generated from the route table: for every declared route and every
@@ -122,7 +123,7 @@ describe('access matrix (generated from the route table)', () => {
     // A message in the fake inbox, for the dev-inbox routes.
     await (await world.signedIn('adminOrg1')).post('/api/invitations', { email: 'matrix.mail@example.com', displayName: 'Matrix Mail', role: 'contractor' });
     const [messageId] = world.smtp.inbox.ids(1);
-    cases = casesFor(world.fixtures, messageId);
+    cases = { ...casesFor(world.fixtures, messageId), ...inventoryMatrixCases(await seedInventoryMatrix(world)) };
   });
   afterAll(async () => world.close());
 
