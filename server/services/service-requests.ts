@@ -13,7 +13,7 @@ import type { Clock } from '../auth/clock';
 import { badRequest, conflict, notFound } from '../errors';
 import { AfterCommit } from '../work-orders/after-commit';
 import type { TxContext, WorkOrderCore } from '../work-orders/core';
-import { requestViews } from '../work-orders/views';
+import { MERGED_SYMPTOMS, requestViews } from '../work-orders/views';
 import { LIVE_JOB, type WorkOrderScope } from '../work-orders/work-order-scope';
 
 export interface ServiceRequestsDeps {
@@ -99,7 +99,7 @@ export class ServiceRequestsService {
       await this.requireOpen(ctx, intoRequestId);
       await ctx.db.query(`UPDATE tenant_report SET service_request_id = $2 WHERE service_request_id = $1`, [requestId, intoRequestId]);
       await ctx.db.query(
-        `UPDATE service_request t SET symptoms = ARRAY(SELECT DISTINCT unnest(t.symptoms || s.symptoms)), updated_at = $3 FROM service_request s WHERE t.id = $2 AND s.id = $1`,
+        `UPDATE service_request t SET symptoms = ${MERGED_SYMPTOMS('t.symptoms', 's.symptoms')}, updated_at = $3 FROM service_request s WHERE t.id = $2 AND s.id = $1`,
         [requestId, intoRequestId, ctx.now],
       );
       const [sourcePriority] = await ctx.db.query(`SELECT priority FROM service_request WHERE id = $1`, [requestId]);

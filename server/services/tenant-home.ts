@@ -15,7 +15,7 @@ import { AfterCommit } from '../work-orders/after-commit';
 import type { TxContext, WorkOrderCore } from '../work-orders/core';
 import { foodSafetyGuidance, HEALTH_TEXT } from '../work-orders/food-safety';
 import { applianceWords } from '../work-orders/job-context';
-import { requestViews } from '../work-orders/views';
+import { MERGED_SYMPTOMS, requestViews } from '../work-orders/views';
 import type { AttachmentsService, UploadedFile } from './attachments';
 
 export interface TenantHomeDeps {
@@ -89,7 +89,7 @@ export class TenantHomeService {
     const urgent = report.symptoms.some((symptom) => URGENT_SYMPTOMS.includes(symptom));
     const requestId: string = open?.id ?? (await this.openRequest(ctx, appliance, report, urgent ? 'urgent' : 'routine'));
     if (open) {
-      await ctx.db.query(`UPDATE service_request SET symptoms = ARRAY(SELECT DISTINCT unnest(symptoms || $2::text[])), updated_at = $3 WHERE id = $1`, [requestId, report.symptoms, ctx.now]);
+      await ctx.db.query(`UPDATE service_request SET symptoms = ${MERGED_SYMPTOMS('symptoms', '$2::text[]')}, updated_at = $3 WHERE id = $1`, [requestId, report.symptoms, ctx.now]);
       if (urgent) await this.deps.core.setPriority(ctx, requestId, 'urgent');
       this.deps.core.announceRequest(ctx, requestId, 'tenant-report');
     }

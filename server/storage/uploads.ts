@@ -34,7 +34,9 @@ const MAX_NAME_LENGTH = 200;
 
 /** Multer errors become the right status: 413 for too large, 400 for the rest. */
 export function receiveFiles(field: string, maxCount: number, maxBytes = UPLOAD_MAX_BYTES): RequestHandler {
-  const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: maxBytes, files: maxCount, fields: 20, fieldSize: 64 * 1024 } }).array(field, maxCount);
+  // preservePath: the name arrives as sent, so a name with folders is seen (and refused), not silently cut.
+  const limits = { fileSize: maxBytes, files: maxCount, fields: 20, fieldSize: 64 * 1024 };
+  const upload = multer({ storage: multer.memoryStorage(), preservePath: true, limits }).array(field, maxCount);
   return (req, res, next) => {
     upload(req, res, (error?: unknown) => {
       if (!error) return next();

@@ -17,6 +17,10 @@ import { INCIDENT_COLUMNS, incidentViewOf } from '../monitor/views';
 type Db = DataSource | EntityManager;
 type Row = Record<string, unknown>;
 
+/** SQL: two symptom arrays joined without repeats, in the order they were first reported. */
+export const MERGED_SYMPTOMS = (first: string, second: string) =>
+  `ARRAY(SELECT s FROM unnest(${first} || ${second}) WITH ORDINALITY AS t(s, n) GROUP BY s ORDER BY min(n))`;
+
 const iso = (value: unknown) => (value ? (value as Date).toISOString() : null);
 
 const PROGRESS: Record<WorkOrderState, RequestProgress> = {
