@@ -7,7 +7,9 @@ import type { Clock } from '../auth/clock';
 import { forbidden } from '../errors';
 import { PROPERTIES_SQL, fleetRowsQuery, type FleetRow, type PropertyRow } from './fleet-query';
 
-const iso = (value: Date | null) => (value ? value.toISOString() : null);
+const isoOfMs = (ms: number | null) => (ms === null ? null : new Date(ms).toISOString());
+/** PostgreSQL real → 0.1 °C (3.9 is stored as 3.9000000953…). */
+const tenths = (tempC: number | null) => (tempC === null ? null : Math.round(tempC * 10) / 10);
 
 function incidentOf(row: FleetRow): FleetIncidentSummary | null {
   if (!row.incident_id) return null;
@@ -16,24 +18,23 @@ function incidentOf(row: FleetRow): FleetIncidentSummary | null {
     kind: row.incident_kind as FindingKind,
     severity: row.incident_severity as Severity,
     topCause: row.incident_top_cause as CauseCode | null,
-    openedAt: (row.incident_opened_at as Date).toISOString(),
+    openedAt: new Date(row.incident_opened_at_ms as number).toISOString(),
     openCount: row.incident_open_count ?? 1,
   };
 }
 
 function applianceOf(row: FleetRow, nowMs: number): FleetAppliance {
   const style = row.style as ApplianceStyle;
+  const age = ageYears(row.installed_on, nowMs);
   return {
     id: row.appliance_id,
     style,
     health: row.health as Health,
-    healthSince: iso(row.health_since),
-    lastReadingAt: iso(row.last_reading_at),
-    freshFoodC: row.fresh_food_c,
-    freezerC: row.freezer_c,
-    ageYears: ageYears(row.installed_on, nowMs),
-    expectedLifeYears: expectedLifeYears(style),
-    deviceIds: row.device_ids ?? [],
+    healthSince: isoOfMs(row.health_since_ms),
+    freshFoodC: tenths(row.fresh_food_c),
+    freezerC: tenths(row.freezer_c),
+    ageYears: age,
+    pastExpectedLife: age !== null && age > expectedLifeYears(style),
     openIncident: incidentOf(row),
   };
 }

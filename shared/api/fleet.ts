@@ -49,17 +49,18 @@ export interface FleetIncidentSummary {
   openCount: number;
 }
 
+/** One tile: kept small, since a fleet of thousands arrives in one answer. */
 export interface FleetAppliance {
   id: string;
   style: ApplianceStyle;
   health: Health;
   healthSince: string | null;
-  lastReadingAt: string | null;
+  /** Latest temperatures, rounded to 0.1 °C. */
   freshFoodC: number | null;
   freezerC: number | null;
   ageYears: number | null;
-  expectedLifeYears: number;
-  deviceIds: string[];
+  /** Older than the expected service life of its style. */
+  pastExpectedLife: boolean;
   openIncident: FleetIncidentSummary | null;
 }
 

@@ -7,6 +7,7 @@
  * Target (ours): p95 of the whole request under 300 ms for the unfiltered fleet.
  */
 import 'reflect-metadata';
+import os from 'node:os';
 import bcrypt from 'bcryptjs';
 import pino from 'pino';
 import { createApp } from '../../server/app';
@@ -127,6 +128,7 @@ async function main(): Promise<void> {
       console.log(`  ${r.path.padEnd(58)} ${String(r.shown).padStart(6)} ${`${r.serverP50.toFixed(1)} / ${r.serverP95.toFixed(1)}`.padStart(18)} ${`${r.wallP50.toFixed(1)} / ${r.wallP95.toFixed(1)}`.padStart(19)} ${r.kb.toFixed(0).padStart(8)}`);
     }
     const whole = results[0];
+    console.log(`  load average during the run: ${os.loadavg().map((load) => load.toFixed(1)).join(' / ')} (1/5/15 min) on ${os.cpus().length} cores`);
     console.log(`  unfiltered p95 ${whole.wallP95.toFixed(1)} ms: target < ${TARGET_P95_MS} ms ${whole.wallP95 < TARGET_P95_MS ? 'met' : 'MISSED'}`);
   } finally {
     await db.drop();

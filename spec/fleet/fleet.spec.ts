@@ -88,16 +88,20 @@ describe('GET /api/fleet', () => {
     expect(overview.properties[0].counts).toEqual({ cold: 2, drifting: 0, warm: 1, 'no-cooling': 0, silent: 1 });
   });
 
-  it('gives each tile its temperatures, sensors, age and expected life', async () => {
-    const tile = applianceIn(await fleet(), ids.a1A)!;
-    expect(tile.freshFoodC).toBeCloseTo(7.5, 5);
-    expect(tile.deviceIds).toEqual(['cw-alder-1a']);
+  it('gives each tile its temperatures rounded to 0.1 °C, its age, and whether it is past its expected life', async () => {
+    const overview = await fleet();
+    const tile = applianceIn(overview, ids.a1A)!;
+    expect([tile.freshFoodC, tile.freezerC]).toEqual([7.5, -15]);
+    expect(applianceIn(overview, ids.a3D)!.freshFoodC).toBe(3.9); // stored as a PostgreSQL real: 3.9000000953…
     // 2012-01-15 to 2026-03-02 is 14.13 years.
     expect(tile.ageYears).toBe(14.1);
-    // Refrigerator 13 years, freezer 11 (NAHB / Bank of America Home Equity, Study of Life Expectancy of Home Components, 2007).
-    expect(tile.expectedLifeYears).toBe(13);
-    expect(applianceIn(await fleet(), ids.a4E)!.expectedLifeYears).toBe(11);
-    expect(applianceIn(await fleet(), ids.a10C)!.ageYears).toBeNull();
+    // Refrigerator 13 years, freezer 11 (NAHB / Bank of America Home Equity, Study of Life Expectancy of Home Components, 2007):
+    // the 14.1-year-old refrigerator and the 11.75-year-old chest freezer are past it, the 6-year-old upright freezer is not.
+    expect(tile.pastExpectedLife).toBeTrue();
+    expect(applianceIn(overview, ids.a2Bfreezer)!.pastExpectedLife).toBeTrue();
+    expect(applianceIn(overview, ids.a4E)!.pastExpectedLife).toBeFalse();
+    expect(applianceIn(overview, ids.a10C)!.ageYears).toBeNull();
+    expect(applianceIn(overview, ids.a10C)!.pastExpectedLife).toBeFalse();
   });
 
   it('summarises the worst open incident per appliance and lists property-level incidents on their band', async () => {
