@@ -24,16 +24,46 @@ export interface PowerLossEpisode {
 
 const MINUTE_MS = 60_000;
 
-/** Earliest repair finding per appliance inside each cluster of start times. */
-function clusters(findings: ApplianceFinding[], windowMs: number): ApplianceFinding[][] {
-  const sorted = findings.filter((f) => isRepairFinding(f.finding)).sort((a, b) => a.finding.startedAtMs - b.finding.startedAtMs);
-  const groups: ApplianceFinding[][] = [];
-  for (const item of sorted) {
-    const group = groups[groups.length - 1];
-    if (group && item.finding.startedAtMs - group[0].finding.startedAtMs <= windowMs) group.push(item);
-    else groups.push([item]);
+/** One appliance's trouble: its repair findings that overlap or follow each other closely. */
+interface UnitEpisode {
+  applianceId: string;
+  startedAtMs: number;
+  findings: ApplianceFinding[];
+  endMs: number;
+}
+
+const UNIT_EPISODE_GAP_MS = 12 * 3_600_000;
+
+function unitEpisodes(findings: ApplianceFinding[]): UnitEpisode[] {
+  const repairs = findings.filter((f) => isRepairFinding(f.finding)).sort((a, b) => a.finding.startedAtMs - b.finding.startedAtMs);
+  const open = new Map<string, UnitEpisode>();
+  const episodes: UnitEpisode[] = [];
+  for (const item of repairs) {
+    const f = item.finding;
+    const current = open.get(item.applianceId);
+    const endMs = f.endedAtMs ?? Infinity;
+    if (current && f.startedAtMs <= current.endMs + UNIT_EPISODE_GAP_MS) {
+      current.findings.push(item);
+      current.endMs = Math.max(current.endMs, endMs);
+      continue;
+    }
+    const episode = { applianceId: item.applianceId, startedAtMs: f.startedAtMs, findings: [item], endMs };
+    open.set(item.applianceId, episode);
+    episodes.push(episode);
   }
-  return groups;
+  return episodes;
+}
+
+/** Appliance episodes whose starts fall within the window of the first one. */
+function clusters(findings: ApplianceFinding[], windowMs: number): ApplianceFinding[][] {
+  const episodes = unitEpisodes(findings).sort((a, b) => a.startedAtMs - b.startedAtMs);
+  const groups: UnitEpisode[][] = [];
+  for (const episode of episodes) {
+    const group = groups[groups.length - 1];
+    if (group && episode.startedAtMs - group[0].startedAtMs <= windowMs) group.push(episode);
+    else groups.push([episode]);
+  }
+  return groups.map((group) => group.flatMap((e) => e.findings));
 }
 
 function applianceCount(group: ApplianceFinding[]): number {
@@ -75,10 +105,13 @@ export class PropertyCorrelator {
   }
 
   private episode(propertyId: string, group: ApplianceFinding[], needed: number, nowMs?: number): PowerLossEpisode {
-    const startedAtMs = medianOf(group.map((g) => g.finding.startedAtMs));
+    const firstStarts = new Map<string, number>();
+    for (const g of group) firstStarts.set(g.applianceId, Math.min(firstStarts.get(g.applianceId) ?? Infinity, g.finding.startedAtMs));
+    const startedAtMs = medianOf([...firstStarts.values()]);
     const ends = group.map((g) => g.finding.endedAtMs);
     const endedAtMs = ends.every((e) => e !== null) ? Math.max(...(ends as number[])) : null;
-    const hoursOut = ((endedAtMs ?? nowMs ?? startedAtMs) - startedAtMs) / (60 * MINUTE_MS);
+    const latestSeenMs = Math.max(...group.map((g) => g.finding.endedAtMs ?? g.finding.detectedAtMs));
+    const hoursOut = ((endedAtMs ?? nowMs ?? latestSeenMs) - startedAtMs) / (60 * MINUTE_MS);
     const applianceIds = [...new Set(group.map((g) => g.applianceId))].sort();
     const finding: Finding = {
       id: `power-loss:${propertyId}:${new Date(startedAtMs).toISOString()}`,
