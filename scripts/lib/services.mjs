@@ -13,7 +13,7 @@ const dist = (file) => path.join(ROOT, 'dist', 'server', file);
  * @param {{ calm?: boolean, speed?: number }} options
  */
 function simulatorArgs(env, options) {
-  const args = ['--backfill-days', '14'];
+  const args = ['--backfill-days', '14', '--idle-without-fleet'];
   if (options.speed && options.speed !== 1) args.push('--replay-hours', '24', '--speed', String(options.speed));
   if (options.calm) args.push('--no-faults');
   if (env.SIMULATOR_CONTROL_PORT) args.push('--control-port', env.SIMULATOR_CONTROL_PORT);

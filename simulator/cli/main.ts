@@ -28,6 +28,7 @@ Time
                           60 runs an hour a minute). Time never runs ahead of the clock
                           unless --allow-future is given.
   --backfill-only         exit once the backfill is written and acknowledged
+  --idle-without-fleet    with no fleet file, say so and wait instead of failing (npm start)
   --no-resume             ignore where the last run stopped (<data dir>/${SIMULATOR_STATE_FILE_NAME})
 
 Faults (the fleet file's own schedule applies unless --no-faults)
@@ -60,6 +61,7 @@ interface CliOptions {
   noFaults: boolean;
   allowFuture: boolean;
   controlPort: number | null;
+  idleWithoutFleet: boolean;
 }
 
 function positive(name: string, text: string | undefined, allowZero = false): number | null {
@@ -89,6 +91,7 @@ export function parseCli(argv: string[], env: NodeJS.ProcessEnv, dataDir: string
       'no-faults': { type: 'boolean' },
       'allow-future': { type: 'boolean' },
       'control-port': { type: 'string' },
+      'idle-without-fleet': { type: 'boolean' },
       help: { type: 'boolean', short: 'h' },
     },
   });
@@ -109,6 +112,7 @@ export function parseCli(argv: string[], env: NodeJS.ProcessEnv, dataDir: string
     noFaults: values['no-faults'] ?? false,
     allowFuture: values['allow-future'] ?? false,
     controlPort: positive('control-port', values['control-port']),
+    idleWithoutFleet: values['idle-without-fleet'] ?? false,
   };
 }
 
@@ -140,7 +144,14 @@ async function main(): Promise<void> {
     process.stdout.write(HELP);
     return;
   }
-  if (!fs.existsSync(options.fleetFile)) throw new Error(`no fleet file at ${options.fleetFile}: run \`npm run seed\` first, or pass --fleet FILE`);
+  if (!fs.existsSync(options.fleetFile)) {
+    const message = `no fleet file at ${options.fleetFile}: run \`npm run seed -- --reset\`, or pass --fleet FILE`;
+    if (!options.idleWithoutFleet) throw new Error(message);
+    // Under npm start an exiting service stops the whole stack; an idle simulator does not.
+    console.log(`[simulator] ${message}; nothing to simulate`);
+    setInterval(() => undefined, 1 << 30);
+    return;
+  }
   const fleet = selectDevices(readFleetFile(options.fleetFile), options);
   const nowMs = Date.now();
   const startMs = options.start ? parseWhenMs(options.start, nowMs, nowMs) : nowMs - options.backfillDays * 86_400_000;
