@@ -17,6 +17,7 @@ import type { EventBus } from '../events/bus';
 import { AppliancesService, type RepairRuleSource, type ServiceHistorySource } from '../services/appliances';
 import { FleetService } from '../services/fleet';
 import { LiveEventsService } from '../services/live-events';
+import { OrgSettingsRepairRule, WorkOrderServiceHistory } from '../services/service-history';
 import { HistoryService } from '../telemetry/history-service';
 import { RejectsService } from '../telemetry/rejects-service';
 import { appliancesRoutes, historyRoutes } from './appliances';
@@ -53,7 +54,13 @@ export function webAppRoutes(deps: WebAppRouteDeps): WebAppRoutes {
     actorOf,
   });
   const live = new LiveEventsService({ bus: deps.bus, scope, logger: deps.logger, nowMs: () => clock.now().getTime() });
-  const appliances = new AppliancesService({ dataSource, scope, clock, serviceHistory: deps.serviceHistory, repairRule: deps.repairRule });
+  const appliances = new AppliancesService({
+    dataSource,
+    scope,
+    clock,
+    serviceHistory: deps.serviceHistory ?? new WorkOrderServiceHistory(dataSource),
+    repairRule: deps.repairRule ?? new OrgSettingsRepairRule(dataSource),
+  });
   const groups = [
     fleetRoutes(fleetController(new FleetService(dataSource, clock))),
     appliancesRoutes(appliancesController(appliances)),

@@ -51,6 +51,14 @@ export interface RepairRuleSettings {
   currency: string;
 }
 
+/** The setting as stored under `repairOrReplace` in the organization's settings. */
+export const RepairRuleSchema = z.object({
+  repairShareOfNewPrice: z.number().min(0.05).max(1),
+  pastLifeShare: z.number().min(0).max(2),
+  newUnitPriceCents: z.partialRecord(z.enum(['refrigerator', 'freezer', 'compact-refrigerator']), z.number().int().min(0).max(10_000_000)),
+  currency: z.string().regex(/^[A-Z]{3}$/),
+});
+
 export const DEFAULT_REPAIR_RULE: RepairRuleSettings = {
   repairShareOfNewPrice: 0.5,
   pastLifeShare: 0.5,
