@@ -36,6 +36,12 @@ export function isTrusted(p: ProbeState): boolean {
   return reason === null || reason === 'disconnected' || reason === 'power-on' || reason === 'dropout';
 }
 
+/** A probe that has not moved at all for a while may be stuck: it starts no repair finding. */
+export function isSuspectStuck(p: ProbeState, atMs: number, settings: DetectionSettings): boolean {
+  const since = p.validation.sameSinceMs;
+  return since !== null && atMs - since >= settings.stuckSuspectMinutes * 60_000;
+}
+
 export function hasOpenRepair(state: EngineState): boolean {
   return state.findings.some(isRepairFinding);
 }

@@ -4,7 +4,7 @@
  * reading so the alarm is as early as the grace period allows.
  */
 import { closeFinding, findOpen, openFinding } from './finding-book';
-import { alarmLimitOf, isTrusted, limitOf, type EngineContext } from './context';
+import { alarmLimitOf, isSuspectStuck, isTrusted, limitOf, type EngineContext } from './context';
 import { currentCauses } from './signature';
 import type { Severity } from '../../shared/domain';
 import type { ProbeState } from './state';
@@ -13,7 +13,7 @@ import { overTempSummary } from './summaries';
 const MINUTE_MS = 60_000;
 
 // Bound once: tsx/esbuild would otherwise call a module getter for every reading.
-const hot = { alarmLimitOf, limitOf, isTrusted, findOpen };
+const hot = { alarmLimitOf, limitOf, isTrusted, isSuspectStuck, findOpen };
 
 function graceMinutes(ctx: EngineContext, p: ProbeState): number {
   const { settings, state } = ctx;
@@ -87,7 +87,7 @@ export function judgeOverTemp(ctx: EngineContext, p: ProbeState, valueC: number,
     return;
   }
   if (t.findingId !== null) t.findingId = null;
-  if (!isAbove || t.aboveSinceMs === null || !hot.isTrusted(p)) return;
+  if (!isAbove || t.aboveSinceMs === null || !hot.isTrusted(p) || hot.isSuspectStuck(p, atMs, ctx.settings)) return;
   const minutes = t.aboveMinutes;
   if (minutes < graceMinutes(ctx, p)) return;
   const finding = openFinding(
@@ -113,12 +113,13 @@ export function overTempPatch(ctx: EngineContext, p: ProbeState, atMs: number) {
   const finding = hot.findOpen(ctx.state, p.overTemp.findingId);
   const valueC = p.validation.lastValidC;
   if (!finding || valueC === null) return null;
-  const aboveSince = p.overTemp.aboveSinceMs ?? finding.startedAtMs;
+  const limitC = hot.limitOf(p.probe, ctx.settings);
   return {
     finding,
     patch: {
       severity: severityFor(p, valueC, finding.minutesAbove4c, ctx),
-      summary: overTempSummary(p.probe, valueC, hot.limitOf(p.probe, ctx.settings), (atMs - aboveSince) / MINUTE_MS),
+      // Once back under the limit the summary keeps its last words from the warm spell.
+      summary: valueC > limitC ? overTempSummary(p.probe, valueC, limitC, (atMs - finding.startedAtMs) / MINUTE_MS) : undefined,
     },
   };
 }

@@ -24,6 +24,7 @@ export interface DetectionSettings {
   jumpCountWindowHours: number;
   stuckMinutes: number;
   stuckToleranceC: number;
+  stuckSuspectMinutes: number;
   dropoutMinutes: number;
   silentAfterMinutes: number;
   sensorRecoveredMinutes: number;
@@ -87,6 +88,7 @@ export const SETTING_DOCS: Record<keyof DetectionSettings, SettingDoc & { value:
   jumpsForSensorFault: { value: 3, unit: 'count', reason: 'one glitch is noise; three in a day is a failing probe or cable (common practice)' },
   jumpCountWindowHours: { value: 24, unit: 'h', reason: 'window for counting glitches (common practice)' },
   stuckMinutes: { value: 240, unit: 'min', reason: 'a working cabinet probe always moves with the compressor cycle within an hour or two; four hours of an identical value is a stuck sensor (common practice)' },
+  stuckSuspectMinutes: { value: 30, unit: 'min', reason: 'a probe in cycling cabinet air changes its reading within half an hour; one that has not changed at all for that long may be stuck: it starts no repair finding until it moves again or is called stuck (common practice)' },
   stuckToleranceC: { value: 0.001, unit: '°C', reason: 'identical to the printed resolution' },
   dropoutMinutes: { value: 60, unit: 'min', reason: 'a probe missing for an hour while the sensor reports is a dropout (common practice)' },
   silentAfterMinutes: { value: 60, unit: 'min', reason: 'no reading for an hour: the sensor is silent (common practice)' },

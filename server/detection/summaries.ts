@@ -20,7 +20,7 @@ export function warmingSummary(probe: Probe, levelC: number, baselineC: number, 
 }
 
 export function overTempSummary(probe: Probe, valueC: number, limitC: number, minutes: number): string {
-  return `${PROBE_WORDS[probe]} at ${temp(valueC)}, above its limit of ${temp(limitC)} for ${Math.round(minutes)} minutes.`;
+  return `${PROBE_WORDS[probe]} at ${temp(valueC)}, above its limit of ${temp(limitC)} for about ${Math.round(minutes)} minutes.`;
 }
 
 export function noCoolingSummary(freshC: number | null, freezerC: number | null): string {

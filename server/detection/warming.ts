@@ -11,7 +11,7 @@
  */
 import type { Probe } from '../../shared/domain';
 import { closeFinding, findOpen, openFinding } from './finding-book';
-import { isTrusted, limitOf, minRiseOf, type EngineContext } from './context';
+import { isSuspectStuck, isTrusted, limitOf, minRiseOf, type EngineContext } from './context';
 import { forecastCrossingMs, recentSlopeCPerHour, residualC, robustSlopeCPerHour } from './level';
 import { currentCauses } from './signature';
 import type { ProbeState } from './state';
@@ -22,6 +22,7 @@ const MINUTE_MS = 60_000;
 
 const CUSUM_CAP_FACTOR = 4;
 const RECOVERY_WINDOW_MINUTES = 90;
+const PEAK_SHARE = 0.9;
 
 const SPREAD_MULTIPLE = 3;
 const CORROBORATED_SHARE = 0.6;
@@ -89,7 +90,7 @@ export function judgeWarming(ctx: EngineContext, p: ProbeState, bucketEndMs: num
   }
   t.findingId = null;
   // A probe with an open sensor fault never starts a repair finding by itself.
-  if (!signalled || t.risingSinceMs === null || p.validation.faultReason !== null) return;
+  if (!signalled || t.risingSinceMs === null || p.validation.faultReason !== null || isSuspectStuck(p, atMs, ctx.settings)) return;
   if (bucketEndMs - t.risingSinceMs < ctx.settings.sustainMinutes * MINUTE_MS) return;
   // The raw quarter-hours, not the lagging level, show a warm load already being pulled down.
   const rawSlope = recentSlopeCPerHour(p.level, RECOVERY_WINDOW_MINUTES, atMs);
@@ -154,12 +155,14 @@ export function warmingPatch(ctx: EngineContext, p: ProbeState, atMs: number) {
   if (!finding || p.level.levelC === null || p.level.baselineC === null) return null;
   const crossing = forecastCrossingMs(p.level, limitOf(p.probe, ctx.settings), ctx.settings);
   const slope = robustSlopeCPerHour(p.level, ctx.settings.slopeWindowMinutes);
+  // The summary keeps describing the worst of the trend, not the recovery that closes it.
+  const nearPeak = p.level.levelC - p.level.baselineC >= PEAK_SHARE * p.trend.peakResidualC;
   return {
     finding,
     patch: {
       severity: warmingSeverity(ctx, p, crossing, atMs),
       forecastCrossingAtMs: crossing,
-      summary: warmingSummary(p.probe, p.level.levelC, p.level.baselineC, slope, crossing),
+      summary: nearPeak ? warmingSummary(p.probe, p.level.levelC, p.level.baselineC, slope, crossing) : undefined,
     },
   };
 }
@@ -171,7 +174,7 @@ function noCoolingRiseC(ctx: EngineContext, probe: Probe): number {
 /** Heading for room temperature: far above normal and still climbing. */
 function isHeadingToRoom(ctx: EngineContext, p: ProbeState): boolean {
   const residual = residualC(p.level);
-  if (residual === null || !isTrusted(p)) return false;
+  if (residual === null || !isTrusted(p) || isSuspectStuck(p, ctx.state.nowMs ?? 0, ctx.settings)) return false;
   if (residual < noCoolingRiseC(ctx, p.probe)) return false;
   const slope = robustSlopeCPerHour(p.level, ctx.settings.noCoolingSlopeWindowMinutes) ?? 0;
   return slope >= ctx.settings.noCoolingSlopeCPerHour;
