@@ -54,12 +54,16 @@ const round3 = (value: number) => Math.round(value * 1000) / 1000;
 export async function rollupSeries(db: DataSource, table: 'reading_rollup_5m' | 'reading_rollup_1h', range: Range, widthMs: number): Promise<ProbeSeries> {
   const width = `${Math.round(widthMs / 1000)} seconds`;
   const rows: RollupRow[] = await db.query(
-    `SELECT (extract(epoch FROM date_bin($2::interval, bucket, ${BUCKET_ORIGIN})) * 1000)::float8 AS t,
-            min(fresh_food_min) AS ff_min, max(fresh_food_max) AS ff_max, sum(fresh_food_sum) / nullif(sum(fresh_food_count), 0) AS ff_mean,
-            min(freezer_min) AS fz_min, max(freezer_max) AS fz_max, sum(freezer_sum) / nullif(sum(freezer_count), 0) AS fz_mean
-       FROM ${table}
-      WHERE appliance_id = $1 AND bucket >= date_bin($2::interval, $3::timestamptz, ${BUCKET_ORIGIN}) AND bucket < $4
-      GROUP BY 1 ORDER BY 1`,
+    // Group on the timestamp and convert only the merged buckets to epoch ms (numeric
+    // arithmetic on every hourly row would cost more than the grouping itself).
+    `SELECT (extract(epoch FROM merged) * 1000)::float8 AS t, ff_min, ff_max, ff_mean, fz_min, fz_max, fz_mean FROM (
+       SELECT date_bin($2::interval, bucket, ${BUCKET_ORIGIN}) AS merged,
+              min(fresh_food_min) AS ff_min, max(fresh_food_max) AS ff_max, sum(fresh_food_sum) / nullif(sum(fresh_food_count), 0) AS ff_mean,
+              min(freezer_min) AS fz_min, max(freezer_max) AS fz_max, sum(freezer_sum) / nullif(sum(freezer_count), 0) AS fz_mean
+         FROM ${table}
+        WHERE appliance_id = $1 AND bucket >= date_bin($2::interval, $3::timestamptz, ${BUCKET_ORIGIN}) AND bucket < $4
+        GROUP BY 1
+     ) buckets ORDER BY merged`,
     [range.applianceId, width, new Date(range.fromMs), new Date(range.toMs)],
   );
   const series = emptySeries(true);
