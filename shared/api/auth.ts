@@ -5,6 +5,7 @@
  */
 import { z } from 'zod';
 import { ROLES, type Role } from '../domain';
+import { passwordLengthProblem } from './password-rules';
 import type { SessionUser } from './session';
 
 export type { SessionUser };
@@ -17,23 +18,13 @@ export const EmailSchema = z
   .max(254, 'an e-mail address has at most 254 characters')
   .pipe(z.email({ message: 'enter a valid e-mail address' }));
 
-/**
- * Password rules after OWASP ASVS 4.0.3 V2.1.1 (at least 12 characters), V2.1.2 (64 allowed)
- * and V2.1.9 (no composition rules). bcrypt reads only the first 72 bytes, so longer
- * input is refused rather than silently cut.
- */
-export const PASSWORD_MIN_LENGTH = 12;
-export const PASSWORD_MAX_LENGTH = 64;
-export const PASSWORD_MAX_BYTES = 72;
+export { PASSWORD_MAX_BYTES, PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from './password-rules';
 
-export const NewPasswordSchema = z
-  .string()
-  .min(PASSWORD_MIN_LENGTH, `use at least ${PASSWORD_MIN_LENGTH} characters`)
-  .max(PASSWORD_MAX_LENGTH, `use at most ${PASSWORD_MAX_LENGTH} characters`)
-  .refine((password) => new TextEncoder().encode(password).length <= PASSWORD_MAX_BYTES, {
-    message: `use at most ${PASSWORD_MAX_BYTES} bytes (fewer accented or non-Latin characters)`,
-  })
-  .refine((password) => new Set(password).size > 2, { message: 'choose a password that is not one repeated character' });
+/** A new password: the shared length rules (password-rules.ts), as a zod schema. */
+export const NewPasswordSchema = z.string().superRefine((password, context) => {
+  const problem = passwordLengthProblem(password);
+  if (problem) context.addIssue({ code: 'custom', message: problem });
+});
 
 /** A password being checked (sign-in, current password): any non-empty string up to the cap. */
 const GivenPasswordSchema = z.string().min(1, 'enter your password').max(256);

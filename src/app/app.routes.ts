@@ -1,6 +1,7 @@
 import { inject } from '@angular/core';
 import type { Route, Routes } from '@angular/router';
 import type { Role } from '../../shared/domain';
+import { ACCOUNT_ROUTES } from './auth/account.routes';
 import { roleGuard } from './core/auth/guards';
 import { Session } from './core/auth/session';
 
@@ -32,20 +33,7 @@ export const routes: Routes = [
     title: 'System status · Chillwarden',
     loadComponent: () => import('./status/status-page').then((m) => m.StatusPage),
   },
-  {
-    path: 'sign-in',
-    title: 'Sign in · Chillwarden',
-    loadComponent: () => import('./shared/empty-state-page/empty-state-page').then((m) => m.EmptyStatePage),
-    data: {
-      title: 'Sign in',
-      lead: 'Managers, contractors and tenants each sign in with the e-mail address they were invited with.',
-      icon: 'login',
-      heading: 'Sign-in is not open on this server yet',
-      message: 'Accounts are being set up. The system status page shows whether the server, database and broker are running.',
-      actionLabel: 'See system status',
-      actionLink: '/status',
-    },
-  },
+  ...ACCOUNT_ROUTES,
   emptyStateRoute('fleet', ['manager'], {
     title: 'Fleet',
     lead: 'Every property and its appliances, coloured by health.',
