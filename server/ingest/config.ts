@@ -53,7 +53,7 @@ export function loadIngestConfig(env: NodeJS.ProcessEnv = process.env): IngestCo
     shards,
     clientId: env.INGEST_CLIENT_ID ?? `cw-ingest-${compactShards(shards)}`.slice(0, 64),
     pipeline: {
-      batchSize: integer(env.INGEST_BATCH_SIZE, 2000, 1),
+      batchSize: integer(env.INGEST_BATCH_SIZE, 5000, 1),
       maxBatchDelayMs: integer(env.INGEST_MAX_BATCH_DELAY_MS, 20, 0),
       maxQueued: integer(env.INGEST_MAX_QUEUED, 20_000, 1),
       backoffInitialMs: integer(env.INGEST_BACKOFF_INITIAL_MS, 250, 1),
