@@ -28,12 +28,18 @@ interface MatrixCase {
   target?: Target;
   /** The answer for a caller the rule and scope let through. */
   ok: number;
+  /** An event stream that never ends: sent with Accept: text/event-stream, only the status is read. */
+  stream?: boolean;
 }
 
 const BOGUS_TOKEN = 'A'.repeat(43);
 const NEW_PASSWORD = 'a brand new passphrase';
 
-/** The request each route gets. Every route in the table needs one: add yours here. */
+/**
+ * The request each route gets. Every route in the table needs one: add yours here, with
+ * `params` for its path, a `body` that passes validation, the `target` (organization and,
+ * for unit scope, unit) the request is about, and the status an allowed caller gets.
+ */
 function casesFor(f: Fixtures, messageId: string): Record<string, MatrixCase> {
   const bystander = { params: { userId: f.users.bystander.id }, target: { organizationId: f.org1.id, unitId: f.org1.unitA } };
   const message = { params: { messageId }, ok: 200 };
@@ -155,7 +161,8 @@ describe('access matrix (generated from the route table)', () => {
         // A fresh session after anything that may end one (sign-out).
         if (!browser) browser = user ? await world.signedIn(caller as Person) : world.browser();
         if (!user) await browser.get('/api/auth/session');
-        const res = await browser.send(record.method, fillPath(record.path, matrixCase.params), record.method === 'get' ? undefined : (matrixCase.body ?? {}));
+        const body = record.method === 'get' ? undefined : (matrixCase.body ?? {});
+        const res = await browser.send(record.method, fillPath(record.path, matrixCase.params), body, { stream: matrixCase.stream });
         const expected = expectedStatus(record, user, matrixCase);
         if (res.status !== expected) mismatches.push(`${keyOf(record)}: expected ${expected}, got ${res.status} ${JSON.stringify(res.body).slice(0, 160)}`);
         if (record.path === '/api/auth/sign-out') browser = null;

@@ -32,8 +32,18 @@ export class Browser {
     this.agent = request.agent(app);
   }
 
-  async send(method: Method, path: string, body?: unknown): Promise<Response> {
+  /**
+   * With `stream`, asks for an event stream and resolves as soon as the status and headers
+   * arrive, dropping the body: for streams that never end.
+   */
+  async send(method: Method, path: string, body?: unknown, options: { stream?: boolean } = {}): Promise<Response> {
     let call = this.agent[method](path);
+    if (options.stream) {
+      call = call.set('Accept', 'text/event-stream').buffer(false).parse((res, done) => {
+        done(null, null);
+        (res as unknown as { destroy(): void }).destroy();
+      });
+    }
     if (method !== 'get' && this.sendCsrfHeader && this.csrfToken) call = call.set('X-XSRF-TOKEN', this.csrfToken);
     if (this.clientIp) call = call.set('X-Forwarded-For', this.clientIp);
     const res = body === undefined ? await call : await call.send(body as object);
