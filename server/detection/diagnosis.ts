@@ -44,6 +44,8 @@ export interface Signature {
   defrostOverdueRatio: number | null;
   /** The last defrost rise relative to the unit's normal one (null if unknown). */
   lastDefrostRiseRatio: number | null;
+  /** Hours the defrost rises had been shrunk or missing before this trouble began (null: not before). */
+  defrostFadedHoursBefore: number | null;
   noCooling: boolean;
 }
 
@@ -70,6 +72,10 @@ const slope = (p: ProbeSignature | null) => p?.slopeCPerHour ?? 0;
 const HEADING_TO_ROOM_C = 6;
 /** A cold spell that develops within this many hours is abrupt (a stuck damper). */
 const ABRUPT_COOLING_HOURS = 8;
+/** Recent rises below this share of the normal defrost rise: the heater is weak or dead. */
+const SHRUNK_RISE_RATIO = 0.7;
+const KEPT_RISE_RATIO = 0.85;
+const FADED_BEFORE_HOURS = 12;
 
 function scoreFastClimb(s: Signature, scores: Scores): void {
   const z = s.freezer;
@@ -136,21 +142,26 @@ function scoreDamperAndDefrost(s: Signature, scores: Scores): void {
   const z = s.freezer;
   const f = s.freshFood;
   const overdue = s.defrostOverdueRatio ?? 0;
-  const defrostFading = overdue >= 2 || (s.lastDefrostRiseRatio ?? 1) < 0.6;
+  // Fading counts only if it came well before the trouble: a stopped fan or a dead compressor
+  // also changes the defrost rises, but at the same moment the cabinet starts to warm.
+  const fadedBefore = (s.defrostFadedHoursBefore ?? -Infinity) >= FADED_BEFORE_HOURS;
+  const defrostFading = fadedBefore && (overdue >= 2 || (s.lastDefrostRiseRatio ?? 1) < SHRUNK_RISE_RATIO);
   // Defrost rises gone for two intervals before any other trouble: the coil is icing up, and
   // an iced coil then chokes the air like a stopped fan or a closed damper.
   // (A freezer far above its normal hides its defrost rises: no evidence either way then.)
   const freezerNearNormal = !z || z.levelRiseC < HEADING_TO_ROOM_C;
   if (defrostFading && freezerNearNormal) add(scores, 'defrost-system', overdue >= 3 ? 4 : 2.5);
-  if (!z || !f || f.levelRiseC < 0.8 || z.levelRiseC > 0.5) return;
+  if (!z || !f || f.levelRiseC < 0.8 || z.levelRiseC > 0.5 || z.riseC > 1) return;
   // Fresh food warmer, freezer not: the cold air no longer reaches the fresh food. A damper
   // sticks at once; ice from a dead defrost heater closes the duct over days.
-  const cooling = z.coolingHours;
-  if (cooling === null) {
+  // The heater tells them apart: its rises shrink when it is dead, and stay when a damper sticks.
+  const riseRatio = s.lastDefrostRiseRatio;
+  if (riseRatio !== null && riseRatio < SHRUNK_RISE_RATIO && fadedBefore) add(scores, 'defrost-system', 3.5);
+  else if (riseRatio !== null && riseRatio >= KEPT_RISE_RATIO) add(scores, 'air-damper', 3.5);
+  else if (z.coolingHours !== null && z.coolingHours > ABRUPT_COOLING_HOURS) add(scores, 'defrost-system', 3);
+  else {
     add(scores, 'air-damper', 2.5);
-    add(scores, 'defrost-system', 1);
-  } else {
-    add(scores, cooling <= ABRUPT_COOLING_HOURS ? 'air-damper' : 'defrost-system', 3.5);
+    add(scores, 'defrost-system', 1.5);
   }
 }
 

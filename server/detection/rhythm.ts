@@ -14,6 +14,7 @@ const hot = { lambdaForGap, pushRing };
 const HOUR_MS = 60 * MINUTE_MS;
 const PERIOD_RING = 16;
 const DEFROST_RING = 16;
+const RECENT_RISES = 3;
 const MIN_CYCLE_MIN = 8;
 const MAX_CYCLE_MIN = 600;
 /** A defrost keeps the air up for 20 minutes or more; the air recovers from a door opening faster. */
@@ -111,10 +112,22 @@ export function trackExcursion(
     return;
   }
   if (valueC >= r.excursionReferenceC + thresholdC / 2) return;
+  // Every door-less rise of defrost length or longer tells how strong the defrost heater still is.
+  if (recordsDefrost && !r.excursionDoor && durationMin >= DEFROST_MIN_MINUTES) noteRise(state, r.excursionPeakC, r.excursionStartMs);
   if (recordsDefrost && !r.excursionDoor && durationMin >= DEFROST_MIN_MINUTES && durationMin <= settings.defrostMaxMinutes) {
     recordDefrost(state, { atMs: r.excursionStartMs, riseC: r.excursionPeakC, durationMin }, settings);
   }
   r.excursionStartMs = null;
+}
+
+const SHRUNK_SHARE = 0.7;
+
+function noteRise(state: EngineState, riseC: number, atMs: number): void {
+  pushRing(state.recentRisesC, riseC, RECENT_RISES);
+  const normal = state.normalDefrostRiseC;
+  if (normal === null) return;
+  if (riseC < SHRUNK_SHARE * normal) state.risesShrunkSinceMs ??= atMs;
+  else state.risesShrunkSinceMs = null;
 }
 
 function recordDefrost(state: EngineState, event: DefrostEvent, settings: DetectionSettings): void {
@@ -135,8 +148,10 @@ function learnDefrostRhythm(state: EngineState): void {
   const rhythm = defrostRhythm(state.defrosts);
   state.defrostRhythm = rhythm;
   state.defrostDurationMin = rhythm.durationMinutes;
-  // The normal size of a defrost rise is fixed once the rhythm is first known, before a fault can shrink it.
-  if (state.normalDefrostRiseC === null && rhythm.riseC !== null) state.normalDefrostRiseC = rhythm.riseC;
+  // The normal size of a defrost rise follows the rhythm while the unit is healthy (no repair
+  // finding open, no rise already shrunk), so a dying heater cannot teach it a smaller normal.
+  const healthy = !state.findings.some((f) => f.kind !== 'sensor-fault') && state.risesShrunkSinceMs === null;
+  if (rhythm.riseC !== null && (state.normalDefrostRiseC === null || healthy)) state.normalDefrostRiseC = rhythm.riseC;
 }
 
 /** Longest excursion still treated as a brief transient: a little longer than the unit's own defrost. */

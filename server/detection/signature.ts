@@ -4,6 +4,7 @@ import { HOUR_MS, isTrusted, probeState, type EngineContext } from './context';
 import { causesFrom, rememberEvidence, scoreCauses, type ProbeSignature, type Signature } from './diagnosis';
 import { recentRiseC, recentSlopeCPerHour, residualC, robustSlopeCPerHour } from './level';
 import { transientLimitMinutes } from './rhythm';
+import { median } from './stats/robust';
 import type { ProbeState } from './state';
 import type { ProbableCause } from './types';
 
@@ -48,11 +49,32 @@ function defrostOverdueRatio(ctx: EngineContext): number | null {
   return (nowMs - rhythm.lastAtMs) / HOUR_MS / rhythm.intervalHours;
 }
 
-/** The last defrost rise against the unit's normal one (a dying heater makes them shrink). */
+/**
+ * The latest rises against the unit's normal defrost rise: a dead heater makes them shrink,
+ * a working one keeps them (a stuck damper only makes them last longer).
+ */
 function lastDefrostRiseRatio(ctx: EngineContext): number | null {
-  const { defrosts, normalDefrostRiseC } = ctx.state;
-  if (normalDefrostRiseC === null || defrosts.length === 0) return null;
-  return defrosts[defrosts.length - 1].riseC / normalDefrostRiseC;
+  const { recentRisesC, normalDefrostRiseC } = ctx.state;
+  if (normalDefrostRiseC === null || recentRisesC.length === 0) return null;
+  return median(recentRisesC) / normalDefrostRiseC;
+}
+
+/** When the trouble began: the earliest rise or cold spell of any probe. */
+function troubleStartMs(ctx: EngineContext): number | null {
+  const starts = ctx.state.probes.flatMap((p) => [p.trend.cusumOnsetMs, p.trend.coolingFromMs]).filter((t): t is number => t !== null);
+  return starts.length ? Math.min(...starts) : null;
+}
+
+/** Hours the defrost rises had been fading (shrunk, or overdue) before the trouble began. */
+function defrostFadedHoursBefore(ctx: EngineContext): number | null {
+  const state = ctx.state;
+  const start = troubleStartMs(ctx) ?? state.lastAtMs;
+  if (start === null) return null;
+  const rhythm = state.defrostRhythm;
+  const overdueFromMs = rhythm.lastAtMs !== null && rhythm.intervalHours !== null ? rhythm.lastAtMs + 1.5 * rhythm.intervalHours * HOUR_MS : null;
+  const fadedFrom = [state.risesShrunkSinceMs, overdueFromMs].filter((t): t is number => t !== null);
+  if (!fadedFrom.length) return null;
+  return (start - Math.min(...fadedFrom)) / HOUR_MS;
 }
 
 export function currentSignature(ctx: EngineContext): Signature {
@@ -62,6 +84,7 @@ export function currentSignature(ctx: EngineContext): Signature {
     freezer: probeSignature(ctx, 'freezer'),
     defrostOverdueRatio: defrostOverdueRatio(ctx),
     lastDefrostRiseRatio: lastDefrostRiseRatio(ctx),
+    defrostFadedHoursBefore: defrostFadedHoursBefore(ctx),
     noCooling: ctx.state.noCoolingFindingId !== null,
   };
 }

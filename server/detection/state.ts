@@ -123,6 +123,10 @@ export interface EngineState {
   /** Median duration of the recorded defrost rises, kept up to date for the hot path. */
   defrostDurationMin: number | null;
   defrostRhythm: { intervalHours: number | null; riseC: number | null; durationMinutes: number | null; lastAtMs: number | null };
+  /** Rises of the latest brief or long excursions without a door (defrosts among them), newest last. */
+  recentRisesC: number[];
+  /** Since when the door-less rises have stayed shrunk below the normal defrost rise. */
+  risesShrunkSinceMs: number | null;
   /** Median rise of the defrosts seen while the unit was learning its normal. */
   normalDefrostRiseC: number | null;
   /** Running estimate of the reading interval (minutes). */
@@ -223,6 +227,8 @@ export function newEngineState(style: ApplianceStyle, probes: readonly Probe[]):
     defrostDurationMin: null,
     defrostRhythm: { intervalHours: null, riseC: null, durationMinutes: null, lastAtMs: null },
     normalDefrostRiseC: null,
+    recentRisesC: [],
+    risesShrunkSinceMs: null,
     intervalMin: null,
     doorOpen: false,
     doorFlagsSeen: false,

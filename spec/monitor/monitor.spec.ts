@@ -30,7 +30,8 @@ describe('live monitor', () => {
   let db: TestDatabase;
   let placement: Placement;
   // Four days ending now: inside the ingest's acceptance window, a day to learn, then the fault.
-  const endMs = Math.floor(Date.now() / INTERVAL_MS) * INTERVAL_MS - INTERVAL_MS;
+  // Midnight UTC: the same scenario (time of day, door habits) on every run.
+  const endMs = Math.floor(Date.now() / DAY_MS) * DAY_MS;
   const startMs = endMs - 4 * DAY_MS;
   const faultAtMs = startMs + 36 * HOUR_MS;
 

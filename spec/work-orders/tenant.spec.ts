@@ -23,28 +23,32 @@ describe('tenant reports and status', () => {
   let applianceB: TestDevice;
   const window = { from: '2026-12-03T16:00:00Z', to: '2026-12-03T20:00:00Z' };
 
+  let opened: { id: string };
+  let filed: { status: number; body: { attached: boolean; request: { id: string; priority: string; symptoms: string[]; reports: { photoIds: string[] }[] } } };
+
+  // One story for the whole file: the manager opens a request, tenant A reports with a photo, the job is dispatched.
   beforeAll(async () => {
     world = await createWorkOrderWorld();
     applianceA = await world.device(0);
     applianceB = await world.device(1);
+    const manager = await world.signedIn(world.people.manager);
+    opened = (await manager.post('/api/service-requests', { applianceId: applianceA.applianceId, priority: 'routine', title: 'Warming trend' })).body;
+    const tenant = await world.signedIn(world.people.tenantA);
+    const photo = await sharp({ create: { width: 30, height: 30, channels: 3, background: '#eeeeee' } }).jpeg().toBuffer();
+    filed = await report(tenant, { symptoms: ['fridge-not-cold', 'noise'], description: 'Milk went sour overnight', accessWindows: [window], petPresent: true }, [{ content: photo, name: 'fridge.jpg' }]);
+    await manager.post(`/api/service-requests/${opened.id}/dispatch`, {});
   }, 30_000);
   afterAll(async () => world.close());
 
   it('adds a report to the open request of the appliance instead of opening a second one', async () => {
-    const manager = await world.signedIn(world.people.manager);
-    const opened = await manager.post('/api/service-requests', { applianceId: applianceA.applianceId, priority: 'routine', title: 'Warming trend' });
-    expect(opened.status).toBe(201);
-    const tenant = await world.signedIn(world.people.tenantA);
-    const photo = await sharp({ create: { width: 30, height: 30, channels: 3, background: '#eeeeee' } }).jpeg().toBuffer();
-    const res = await report(tenant, { symptoms: ['fridge-not-cold', 'noise'], description: 'Milk went sour overnight', accessWindows: [window], petPresent: true }, [{ content: photo, name: 'fridge.jpg' }]);
-    expect(res.status).toBe(200);
-    expect(res.body.attached).toBeTrue();
-    expect(res.body.request.id).toBe(opened.body.id);
+    expect(filed.status).toBe(200);
+    expect(filed.body.attached).toBeTrue();
+    expect(filed.body.request.id).toBe(opened.id);
     // "Fridge not cold" puts food at risk: the request becomes urgent.
-    expect(res.body.request.priority).toBe('urgent');
-    expect(res.body.request.symptoms).toEqual(jasmine.arrayWithExactContents(['fridge-not-cold', 'noise']));
-    expect(res.body.request.reports.length).toBe(1);
-    expect(res.body.request.reports[0].photoIds.length).toBe(1);
+    expect(filed.body.request.priority).toBe('urgent');
+    expect(filed.body.request.symptoms).toEqual(['fridge-not-cold', 'noise']);
+    expect(filed.body.request.reports.length).toBe(1);
+    expect(filed.body.request.reports[0].photoIds.length).toBe(1);
     const [count] = await world.db.dataSource.query(`SELECT count(*)::int AS n FROM service_request WHERE appliance_id = $1`, [applianceA.applianceId]);
     expect(count.n).toBe(1);
 
@@ -54,7 +58,6 @@ describe('tenant reports and status', () => {
     expect(toManager.some((m) => m.subject.startsWith('Tenant report added'))).toBeTrue();
 
     // The contractor's dispatch carries the tenant's access window and the pet.
-    await manager.post(`/api/service-requests/${opened.body.id}/dispatch`, {});
     const dispatch = (await world.mailTo('dispatch@frostline.example.com')).find((m) => m.subject.includes('Warming trend'));
     expect(dispatch?.text).toContain('A pet lives in the unit.');
     expect(dispatch?.text).toContain('Access: Dec 3, 2026');
@@ -64,8 +67,9 @@ describe('tenant reports and status', () => {
   it("keeps a unit's requests, reports and photos from the tenant of another unit", async () => {
     const tenantA = await world.signedIn(world.people.tenantA);
     const tenantB = await world.signedIn(world.people.tenantB);
-    const [mine] = (await tenantA.get('/api/service-requests')).body.items;
+    const mine = (await tenantA.get(`/api/service-requests/${opened.id}`)).body;
     expect(mine.applianceId).toBe(applianceA.applianceId);
+    expect((await tenantA.get('/api/service-requests')).body.items.map((r: { id: string }) => r.id)).toContain(opened.id);
     expect((await tenantB.get(`/api/service-requests/${mine.id}`)).status).toBe(404);
     expect((await tenantB.get('/api/service-requests')).body.items.map((r: { id: string }) => r.id)).not.toContain(mine.id);
     const photoUrl = `/api/attachments/${mine.reports[0].photoIds[0]}`;
