@@ -33,6 +33,8 @@ interface MatrixCase {
 }
 
 const BOGUS_TOKEN = 'A'.repeat(43);
+/** One caller against every route is many requests; on a busy machine that outlasts jasmine's 5 s default. */
+const MATRIX_ROW_TIMEOUT_MS = 120_000;
 const NEW_PASSWORD = 'a brand new passphrase';
 
 /**
@@ -168,7 +170,7 @@ describe('access matrix (generated from the route table)', () => {
         if (record.path === '/api/auth/sign-out') browser = null;
       }
       expect(mismatches).toEqual([]);
-    });
+    }, MATRIX_ROW_TIMEOUT_MS);
   }
 
   it('lets contractors reach no unit, appliance, user or invitation while no work order is dispatched to them', async () => {
