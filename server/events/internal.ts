@@ -13,6 +13,12 @@ export interface ProbeLevelStatus {
   baselineC: number | null;
 }
 
+/** Each probe's smoothed level at the end of one quarter hour (monitor/level-trail.ts). */
+export interface LevelPoint {
+  atMs: number;
+  levelsC: Partial<Record<Probe, number | null>>;
+}
+
 export interface ApplianceStatusEvent extends EventPlace {
   type: 'appliance.status';
   applianceId: string;
@@ -22,4 +28,6 @@ export interface ApplianceStatusEvent extends EventPlace {
   probes: Partial<Record<Probe, ProbeLevelStatus>>;
   /** Repair findings (over-temperature, warming-trend, no-cooling) still open. */
   openRepairFindings: number;
+  /** Every quarter-hour level of this batch, oldest first (a batch may span hours). */
+  trail?: LevelPoint[];
 }

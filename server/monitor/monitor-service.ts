@@ -198,6 +198,7 @@ function statusEvents(snapshots: { appliance: MonitoredAppliance; engineState: E
       lastReadingAtMs: appliance.lastReading.atMs,
       probes: probeLevels(engineState),
       openRepairFindings: appliance.openRepairFindings(),
+      trail: appliance.trail.take(),
     };
     return [event];
   });

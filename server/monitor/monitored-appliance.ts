@@ -1,4 +1,4 @@
-import type { ApplianceStyle, Health } from '../../shared/domain';
+import { probesOf, type ApplianceStyle, type Health } from '../../shared/domain';
 import { DetectionEngine } from '../detection/engine';
 import { IncidentTracker, type IncidentEvent, type IncidentTrackerState } from '../detection/incidents';
 import { settingsFor } from '../detection/settings';
@@ -6,6 +6,7 @@ import type { EngineState } from '../detection/state';
 import { isRepairFinding, type EngineEvent } from '../detection/types';
 import type { StoredReading } from '../ingest/store';
 import { isSilent } from '../telemetry/liveness';
+import { LevelTrail } from './level-trail';
 import { engineReadingOf } from './readings';
 
 /** Where an appliance sits and how its sensor reports. */
@@ -53,6 +54,8 @@ function restoreEngine(style: ApplianceStyle, saved: EngineState | undefined): D
 export class MonitoredAppliance {
   readonly engine: DetectionEngine;
   readonly tracker: IncidentTracker;
+  /** Quarter-hour levels for the work-order verification (rebuilt within the level window after a restart). */
+  readonly trail: LevelTrail;
   health: Health;
   healthSinceMs: number;
   lastReading: LastReading | null;
@@ -66,6 +69,7 @@ export class MonitoredAppliance {
   ) {
     this.engine = restoreEngine(ref.style, saved?.engineState);
     this.tracker = new IncidentTracker(settingsFor(ref.style), saved?.trackerState);
+    this.trail = new LevelTrail(probesOf(ref.style), settingsFor(ref.style));
     this.health = saved?.health ?? 'silent';
     this.healthSinceMs = saved?.healthSinceMs ?? nowMs;
     this.lastReading = saved?.lastReading ?? null;
@@ -88,6 +92,10 @@ export class MonitoredAppliance {
         incidentEvents.push(...this.tracker.handle(event));
       }
       this.lastReading = { atMs: reading.atMs, freshFoodC: reading.freshFoodC, freezerC: reading.freezerC };
+      this.trail.add(reading.atMs, {
+        fresh_food: reading.freshFoodFlag ? null : reading.freshFoodC,
+        freezer: reading.freezerFlag ? null : reading.freezerC,
+      });
     }
     // Incidents that stayed recovered for the reopen window close on the reading clock.
     if (this.lastReading) incidentEvents.push(...this.tracker.tick(this.lastReading.atMs));

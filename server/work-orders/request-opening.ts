@@ -90,7 +90,7 @@ export class RequestOpener {
     const rows: { id: string }[] = await this.deps.dataSource.query(
       `SELECT i.id FROM incident i
         WHERE i.level = 'appliance' AND i.lane = 'repair' AND i.closed_at IS NULL AND i.property_incident_id IS NULL
-          AND NOT EXISTS (SELECT 1 FROM service_request r WHERE r.appliance_id = i.appliance_id AND r.status = 'open')
+          AND NOT EXISTS (SELECT 1 FROM service_request r WHERE (r.appliance_id = i.appliance_id AND r.status = 'open') OR r.incident_id = i.id)
         ORDER BY i.opened_at LIMIT 500`,
     );
     return rows.map((row) => row.id);
@@ -103,17 +103,33 @@ export class RequestOpener {
     await ctx.db.query(`SELECT id FROM appliance WHERE id = $1 FOR UPDATE`, [incident.appliance_id]);
     const [open] = await ctx.db.query(`SELECT id, incident_id FROM service_request WHERE appliance_id = $1 AND status = 'open'`, [incident.appliance_id]);
     if (open) return this.attach(ctx, open.id, open.incident_id, incident);
+    // An incident opens one request at most: once that one is closed (verified, cancelled,
+    // merged), the incident's later updates (the cabinet still settling) open nothing.
+    const [handled] = await ctx.db.query(`SELECT 1 FROM service_request WHERE incident_id = $1 LIMIT 1`, [incident.id]);
+    if (handled) return;
     if (await this.holding(ctx.db, incident, settings.dispatchHoldMinutes, ctx.now)) return;
     await this.open(ctx, incident);
   }
 
-  /** A later incident of the appliance joins its open request; the priority only goes up. */
+  /**
+   * A later incident (or a later state of the same one) joins the open request; the priority
+   * only goes up. A monitor request that never had a job follows the diagnosis: its title
+   * tracks the probable cause, and once the cause is one a technician fixes, it is dispatched.
+   */
   private async attach(ctx: TxContext, requestId: string, currentIncidentId: string | null, incident: IncidentRow): Promise<void> {
     if (currentIncidentId !== incident.id) {
       await ctx.db.query(`UPDATE service_request SET incident_id = $2, updated_at = $3 WHERE id = $1`, [requestId, incident.id, ctx.now]);
       this.deps.core.announceRequest(ctx, requestId, 'incident-attached');
     }
     if (priorityOf(incident) === 'urgent') await this.deps.core.setPriority(ctx, requestId, 'urgent');
+    const [request] = await ctx.db.query(
+      `SELECT r.source, r.title, EXISTS (SELECT 1 FROM work_order wo WHERE wo.service_request_id = r.id) AS had_job FROM service_request r WHERE r.id = $1`,
+      [requestId],
+    );
+    if (request.source !== 'monitor' || request.had_job) return;
+    const title = titleOf(incident);
+    if (title !== request.title) await ctx.db.query(`UPDATE service_request SET title = $2, updated_at = $3 WHERE id = $1`, [requestId, title, ctx.now]);
+    if (incident.top_cause && causeInfo(incident.top_cause).dispatch) await this.deps.core.dispatchByCoverage(ctx, requestId);
   }
 
   /** True while a unit's trouble might still turn out to be its property's power loss. */

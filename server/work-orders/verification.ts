@@ -12,7 +12,7 @@ import type { Probe } from '../../shared/domain';
 import type { Clock } from '../auth/clock';
 import { alarmLimitOf } from '../detection/context';
 import { DEFAULT_SETTINGS, type DetectionSettings } from '../detection/settings';
-import type { ApplianceStatusEvent, ProbeLevelStatus } from '../events/internal';
+import type { ApplianceStatusEvent, LevelPoint, ProbeLevelStatus } from '../events/internal';
 import { AfterCommit } from './after-commit';
 import type { TxContext, WorkOrderCore, WorkOrderRow } from './core';
 import type { OrgSettingsService } from './org-settings';
@@ -29,22 +29,49 @@ export interface VerificationDeps {
 const MINUTE_MS = 60_000;
 
 /** True when the probe's level is back in its normal range. */
-export function probeRecovered(probe: Probe, level: ProbeLevelStatus, detection: DetectionSettings = DEFAULT_SETTINGS): boolean {
-  if (level.levelC === null) return false;
-  if (level.levelC > alarmLimitOf(probe, detection)) return false;
-  return level.baselineC === null || level.levelC <= level.baselineC + detection.recoveredBandC;
+export function probeRecovered(probe: Probe, levelC: number | null | undefined, baselineC: number | null | undefined, detection: DetectionSettings = DEFAULT_SETTINGS): boolean {
+  if (levelC === null || levelC === undefined) return false;
+  if (levelC > alarmLimitOf(probe, detection)) return false;
+  return baselineC === null || baselineC === undefined || levelC <= baselineC + detection.recoveredBandC;
 }
 
-/** The newest level time when every probe has recovered with a level computed after `sinceMs`; null otherwise. */
-export function recoveredAt(status: Pick<ApplianceStatusEvent, 'probes'>, sinceMs: number, detection: DetectionSettings = DEFAULT_SETTINGS): number | null {
-  const entries = Object.entries(status.probes) as [Probe, ProbeLevelStatus][];
-  if (!entries.length) return null;
-  let latestMs = -Infinity;
-  for (const [probe, level] of entries) {
-    if (level.levelAtMs === null || level.levelAtMs <= sinceMs || !probeRecovered(probe, level, detection)) return null;
-    latestMs = Math.max(latestMs, level.levelAtMs);
+export interface Observation {
+  atMs: number;
+  recovered: boolean;
+}
+
+/**
+ * What a status says about the cabinet after `sinceMs`, one observation per quarter-hour
+ * level (the batch's whole trail), or only its latest level for a status without a trail.
+ */
+export function observationsOf(status: Pick<ApplianceStatusEvent, 'probes' | 'trail'>, sinceMs: number, detection: DetectionSettings = DEFAULT_SETTINGS): Observation[] {
+  const probes = Object.keys(status.probes) as Probe[];
+  if (!probes.length) return [];
+  const baseline = (probe: Probe) => status.probes[probe]?.baselineC;
+  const points: LevelPoint[] = status.trail ?? latestPoint(status.probes);
+  return points
+    .filter((point) => point.atMs > sinceMs)
+    .map((point) => ({ atMs: point.atMs, recovered: probes.every((probe) => probeRecovered(probe, point.levelsC[probe], baseline(probe), detection)) }));
+}
+
+function latestPoint(probes: Partial<Record<Probe, ProbeLevelStatus>>): LevelPoint[] {
+  const entries = Object.entries(probes) as [Probe, ProbeLevelStatus][];
+  if (entries.some(([, level]) => level.levelAtMs === null)) return [];
+  const atMs = Math.min(...entries.map(([, level]) => level.levelAtMs as number));
+  return [{ atMs, levelsC: Object.fromEntries(entries.map(([probe, level]) => [probe, level.levelC])) }];
+}
+
+export type Verdict = { outcome: 'verified'; recoveredSinceMs: number; atMs: number } | { outcome: 'reopen' } | { outcome: 'waiting'; recoveredSinceMs: number | null };
+
+/** Walks the observations in order: verified once recovered for the hold inside the window; reopened once past the window. */
+export function judgeObservations(observations: Observation[], recoveredSinceMs: number | null, dueMs: number, holdMs: number, lastReadingAtMs: number): Verdict {
+  let since = recoveredSinceMs;
+  for (const observation of observations) {
+    if (observation.atMs > dueMs) return { outcome: 'reopen' };
+    since = observation.recovered ? (since ?? observation.atMs) : null;
+    if (since !== null && observation.atMs - since >= holdMs) return { outcome: 'verified', recoveredSinceMs: since, atMs: observation.atMs };
   }
-  return latestMs;
+  return lastReadingAtMs > dueMs ? { outcome: 'reopen' } : { outcome: 'waiting', recoveredSinceMs: since };
 }
 
 export class Verification {
@@ -101,14 +128,14 @@ export class Verification {
         const completedMs = (wo.completed_at as Date).getTime();
         const settings = await this.deps.settings.forOrganization(wo.organization_id);
         const dueMs = completedMs + settings.verificationWindowMinutes * MINUTE_MS;
-        const levelMs = recoveredAt(status, completedMs, this.deps.detection);
-        const sinceMs = levelMs === null ? null : (wo.recovered_since?.getTime() ?? levelMs);
-        if (sinceMs !== null && levelMs !== null && levelMs - sinceMs >= settings.verificationHoldMinutes * MINUTE_MS && levelMs <= dueMs) {
-          return this.verify(ctx, wo, sinceMs, levelMs);
-        }
-        if (status.lastReadingAtMs > dueMs) return this.reopen(ctx, wo);
+        const observations = observationsOf(status, completedMs, this.deps.detection);
         const stored = wo.recovered_since?.getTime() ?? null;
-        if (stored !== sinceMs) await this.deps.core.setColumns(ctx, wo.id, { recovered_since: sinceMs === null ? null : new Date(sinceMs) });
+        const verdict = judgeObservations(observations, stored, dueMs, settings.verificationHoldMinutes * MINUTE_MS, status.lastReadingAtMs);
+        if (verdict.outcome === 'verified') return this.verify(ctx, wo, verdict.recoveredSinceMs, verdict.atMs);
+        if (verdict.outcome === 'reopen') return this.reopen(ctx, wo);
+        if (verdict.recoveredSinceMs !== stored) {
+          await this.deps.core.setColumns(ctx, wo.id, { recovered_since: verdict.recoveredSinceMs === null ? null : new Date(verdict.recoveredSinceMs) });
+        }
       }),
     );
   }
