@@ -13,13 +13,15 @@ interface CacheEntry {
 /**
  * Device id → sensor and appliance, cached so a batch of known sensors costs no query.
  * Entries expire so a re-paired or archived sensor is picked up within `ttlMs`; unknown
- * ids are cached too (as null) so a flood from one unregistered device stays cheap.
+ * ids are cached too (as null, for `unknownTtlMs`) so a flood from one unregistered device
+ * stays cheap while a newly registered one is not refused for long.
  */
 export class SensorDirectory {
   private readonly cache = new Map<string, CacheEntry>();
 
   constructor(
     private readonly ttlMs = 5 * 60_000,
+    private readonly unknownTtlMs = 30_000,
     private readonly maxEntries = 200_000,
     private readonly nowMs: () => number = Date.now,
   ) {}
@@ -51,7 +53,7 @@ export class SensorDirectory {
     if (this.cache.size + deviceIds.length > this.maxEntries) this.cache.clear();
     for (const deviceId of deviceIds) {
       const ref = found.get(deviceId) ?? null;
-      this.cache.set(deviceId, { ref, expiresAtMs: now + this.ttlMs });
+      this.cache.set(deviceId, { ref, expiresAtMs: now + (ref ? this.ttlMs : this.unknownTtlMs) });
       result.set(deviceId, ref);
     }
   }
