@@ -34,15 +34,18 @@ export const routes: Routes = [
     loadComponent: () => import('./status/status-page').then((m) => m.StatusPage),
   },
   ...ACCOUNT_ROUTES,
-  emptyStateRoute('fleet', ['manager'], {
-    title: 'Fleet',
-    lead: 'Every property and its appliances, coloured by health.',
-    icon: 'kitchen',
-    heading: 'No appliances are reporting yet',
-    message: 'Once sensors report, each property appears here as a band of units coloured from cold to no cooling. Pair a sensor to an appliance in Inventory to begin.',
-    actionLabel: 'Open inventory',
-    actionLink: '/inventory',
-  }),
+  {
+    path: 'fleet',
+    title: 'Fleet · Chillwarden',
+    canMatch: [roleGuard('manager')],
+    loadComponent: () => import('./fleet/fleet-page').then((m) => m.FleetPage),
+  },
+  {
+    path: 'appliances/:id',
+    title: 'Appliance · Chillwarden',
+    canMatch: [roleGuard('manager')],
+    loadComponent: () => import('./appliance/appliance-page').then((m) => m.AppliancePage),
+  },
   emptyStateRoute('incidents', ['manager'], {
     title: 'Incidents',
     lead: 'Episodes of trouble on an appliance, from the first finding to recovery.',

@@ -64,4 +64,29 @@ describe('buildChartOptions', () => {
     const option = buildChartOptions(data, 'C', palette) as Record<string, unknown>;
     expect(byName(option, 'Forecast').data).toEqual([[2 * hourMs, 6], [5 * hourMs, 10]]);
   });
+
+  it('labels the time axis and the tooltip in the property’s time zone, daylight saving time included', () => {
+    type Axis = { axisLabel: { formatter: (valueMs: number) => string } };
+    const newYork = buildChartOptions(data, 'C', palette, 'America/New_York') as Record<string, unknown>;
+    const label = (newYork['xAxis'] as Axis).axisLabel.formatter;
+    // America/New_York is UTC−5 in winter (EST) and UTC−4 in summer (EDT) (IANA time zone database).
+    expect(label(Date.parse('2026-03-02T15:00:00Z'))).toBe('10:00');
+    expect(label(Date.parse('2026-07-01T15:00:00Z'))).toBe('11:00');
+    const tokyo = buildChartOptions(data, 'C', palette, 'Asia/Tokyo') as Record<string, unknown>;
+    expect((tokyo['xAxis'] as Axis).axisLabel.formatter(Date.parse('2026-03-02T15:00:00Z'))).toBe('00:00');
+    const tooltip = (newYork['tooltip'] as { formatter: (params: unknown) => string }).formatter([
+      { seriesName: 'Fresh food', marker: '', value: [Date.parse('2026-03-02T15:00:00Z'), 3.5] },
+      { seriesName: 'Fresh food range', marker: '', value: [Date.parse('2026-03-02T15:00:00Z'), 1] },
+    ]);
+    expect(tooltip).toBe('Mar 2, 2026, 10:00 EST<br/>Fresh food: 3.5 °C');
+  });
+
+  it('labels a long range by day, and a year by month', () => {
+    type Axis = { axisLabel: { formatter: (valueMs: number) => string } };
+    const week = { probes: { fresh_food: { points: [[0, 3], [7 * 24 * hourMs, 3]] as [number, number][], envelope: null } } };
+    const year = { probes: { fresh_food: { points: [[0, 3], [365 * 24 * hourMs, 3]] as [number, number][], envelope: null } } };
+    const at = Date.parse('2026-03-02T15:00:00Z');
+    expect(((buildChartOptions(week, 'C', palette, 'UTC') as Record<string, unknown>)['xAxis'] as Axis).axisLabel.formatter(at)).toBe('Mar 2');
+    expect(((buildChartOptions(year, 'C', palette, 'UTC') as Record<string, unknown>)['xAxis'] as Axis).axisLabel.formatter(at)).toBe('Mar 2026');
+  });
 });

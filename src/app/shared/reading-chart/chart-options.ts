@@ -2,6 +2,7 @@ import type { EChartsCoreOption } from 'echarts/core';
 import type { Probe } from '../../../../shared/domain';
 import { FREEZER_LIMIT_C, FRESH_FOOD_LIMIT_C, cToF, type TemperatureUnit } from '../../../../shared/temperature';
 import type { ChartPalette, ReadingChartData } from './chart-data';
+import { axisLabelFormatter, tooltipTime } from './time-format';
 
 const PROBE_LABEL: Record<Probe, string> = { fresh_food: 'Fresh food', freezer: 'Freezer' };
 const PROBE_LIMIT_C: Record<Probe, number> = { fresh_food: FRESH_FOOD_LIMIT_C, freezer: FREEZER_LIMIT_C };
@@ -126,6 +127,28 @@ function forecastSeries(data: ReadingChartData, unit: TemperatureUnit, palette: 
   ];
 }
 
+function firstTimeMs(data: ReadingChartData): number {
+  let first = Infinity;
+  for (const series of Object.values(data.probes)) {
+    const point = series?.points[0];
+    if (point && point[0] < first) first = point[0];
+  }
+  return Number.isFinite(first) ? first : 0;
+}
+
+type TooltipParam = { seriesName?: string; marker?: string; value?: unknown };
+
+/** The tooltip lists the probes and the forecast at the hovered time, in the given zone. */
+function tooltipFormatter(unit: TemperatureUnit, timeZone: string | null) {
+  return (params: TooltipParam | TooltipParam[]) => {
+    const list = (Array.isArray(params) ? params : [params]).filter((p) => Array.isArray(p.value) && !p.seriesName?.endsWith(' range'));
+    const atMs = (list[0]?.value as [number, number] | undefined)?.[0];
+    if (atMs === undefined) return '';
+    const lines = list.map((p) => `${p.marker ?? ''}${p.seriesName}: ${(p.value as [number, number])[1]} °${unit}`);
+    return [tooltipTime(atMs, timeZone), ...lines].join('<br/>');
+  };
+}
+
 function lastTimeMs(data: ReadingChartData): number {
   let last = 0;
   for (const series of Object.values(data.probes)) {
@@ -135,8 +158,11 @@ function lastTimeMs(data: ReadingChartData): number {
   return Math.max(last, data.forecast?.crossingMs ?? 0);
 }
 
-/** The whole echarts option for the reading chart: pure, so specs check it directly. */
-export function buildChartOptions(data: ReadingChartData, unit: TemperatureUnit, palette: ChartPalette): EChartsCoreOption {
+/**
+ * The whole echarts option for the reading chart: pure, so specs check it directly.
+ * Times are labelled in `timeZone` (an IANA name; null: the browser's own).
+ */
+export function buildChartOptions(data: ReadingChartData, unit: TemperatureUnit, palette: ChartPalette, timeZone: string | null = null): EChartsCoreOption {
   const probes = (['fresh_food', 'freezer'] as const).filter((probe) => data.probes[probe]?.points.length);
   const series = [
     ...probes.flatMap((probe) => (data.probes[probe]!.envelope ? envelopeSeries(probe, data.probes[probe]!.envelope!, unit, palette) : [])),
@@ -149,8 +175,8 @@ export function buildChartOptions(data: ReadingChartData, unit: TemperatureUnit,
     textStyle: { fontFamily: 'Roboto, sans-serif', color: palette.text },
     grid: { left: 48, right: 24, top: 36, bottom: 72 },
     legend: { top: 0, data: [...probes.map((p) => PROBE_LABEL[p]), ...(data.forecast ? ['Forecast'] : [])], textStyle: { color: palette.text } },
-    tooltip: { trigger: 'axis', valueFormatter: (value: unknown) => (typeof value === 'number' ? `${value} °${unit}` : String(value)) },
-    xAxis: { type: 'time', axisLabel: { color: palette.text, hideOverlap: true }, splitLine: { show: false } },
+    tooltip: { trigger: 'axis', formatter: tooltipFormatter(unit, timeZone) },
+    xAxis: { type: 'time', axisLabel: { color: palette.text, hideOverlap: true, formatter: axisLabelFormatter(lastTimeMs(data) - firstTimeMs(data), timeZone) }, splitLine: { show: false } },
     yAxis: { type: 'value', scale: true, name: `°${unit}`, axisLabel: { color: palette.text }, splitLine: { lineStyle: { color: palette.grid, opacity: 0.4 } } },
     dataZoom: [{ type: 'inside', filterMode: 'none' }, { type: 'slider', height: 24, bottom: 16, filterMode: 'none' }],
     series,
