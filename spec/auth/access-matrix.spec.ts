@@ -3,7 +3,7 @@ import { routeTableOf, type RouteRecord, type ScopeKind } from '../../server/aut
 import { Scope } from '../../server/auth/scope';
 import type { Browser } from './support/browser';
 import { mountedRoutes } from './support/express-routes';
-import { createWorld, type Fixtures, type Person, type SeededUser, type World } from './support/world';
+import { createWorld, type Fixtures, type Person, type SeededUser, type World, SPEC_TIMEOUT_MS } from './support/world';
 import { inventoryMatrixCases, seedInventoryMatrix } from '../inventory/support/access-cases';
 
 /**
@@ -132,8 +132,8 @@ describe('access matrix (generated from the route table)', () => {
     await (await world.signedIn('adminOrg1')).post('/api/invitations', { email: 'matrix.mail@example.com', displayName: 'Matrix Mail', role: 'contractor' });
     const [messageId] = world.smtp.inbox.ids(1);
     cases = { ...casesFor(world.fixtures, messageId), ...inventoryMatrixCases(await seedInventoryMatrix(world)) };
-  });
-  afterAll(async () => world.close());
+  }, SPEC_TIMEOUT_MS);
+  afterAll(async () => world.close(), SPEC_TIMEOUT_MS);
 
   it('declares every route Express answers in the route table', () => {
     const declared = new Set(records.map(keyOf));
@@ -181,7 +181,7 @@ describe('access matrix (generated from the route table)', () => {
       for (const unitId of [org1.unitA, org1.unitB, org2.unitC]) expect(await rules.canReadUnit(actor, unitId)).withContext(`${caller} unit`).toBeFalse();
       for (const applianceId of [org1.applianceA, org2.applianceC]) expect(await rules.canReadAppliance(actor, applianceId)).withContext(`${caller} appliance`).toBeFalse();
     }
-  });
+  }, SPEC_TIMEOUT_MS);
 
   xit('lets a contractor read the appliance of a job dispatched to them, and only for the job’s duration', () => {
     // Work orders arrive in a later issue: it extends Scope.contractorReaches and gives

@@ -1,12 +1,12 @@
-import { createWorld, type World } from './support/world';
+import { createWorld, type World, SPEC_TIMEOUT_MS } from './support/world';
 
 describe('CSRF protection (double-submit token, Angular XSRF names)', () => {
   let world: World;
 
   beforeAll(async () => {
     world = await createWorld();
-  });
-  afterAll(async () => world.close());
+  }, SPEC_TIMEOUT_MS);
+  afterAll(async () => world.close(), SPEC_TIMEOUT_MS);
 
   it('refuses a state-changing request without the X-XSRF-TOKEN header', async () => {
     const browser = await world.signedIn('managerOrg1');
@@ -16,7 +16,7 @@ describe('CSRF protection (double-submit token, Angular XSRF names)', () => {
     expect(res.body.error).toMatch(/reload the page/);
     browser.sendCsrfHeader = true;
     expect((await browser.patch('/api/profile', { temperatureUnit: 'C' })).status).toBe(200);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('refuses a sign-in without the token too (login CSRF)', async () => {
     const { tenantA } = world.fixtures.users;
@@ -24,7 +24,7 @@ describe('CSRF protection (double-submit token, Angular XSRF names)', () => {
     browser.sendCsrfHeader = false;
     await browser.get('/api/auth/session');
     expect((await browser.post('/api/auth/sign-in', { email: tenantA.email, password: tenantA.password })).status).toBe(403);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('refuses a header that does not match the cookie', async () => {
     const browser = await world.signedIn('tenantA');
@@ -33,7 +33,7 @@ describe('CSRF protection (double-submit token, Angular XSRF names)', () => {
     expect((await browser.post('/api/auth/sign-out')).status).toBe(403);
     browser.csrfToken = real;
     expect((await browser.post('/api/auth/sign-out')).status).toBe(204);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it("refuses another session's token, even with matching cookie and header", async () => {
     const victim = await world.signedIn('tenantA');
@@ -45,7 +45,7 @@ describe('CSRF protection (double-submit token, Angular XSRF names)', () => {
       .set('X-XSRF-TOKEN', attacker.csrfToken)
       .send({ temperatureUnit: 'C' });
     expect(res.status).toBe(403);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('issues a new token at sign-in: the one from before no longer works', async () => {
     const { contractorWithJob } = world.fixtures.users;
@@ -61,11 +61,11 @@ describe('CSRF protection (double-submit token, Angular XSRF names)', () => {
     expect(stale.status).toBe(403);
     browser.csrfToken = signedInToken;
     expect((await browser.patch('/api/profile', { phone: '555-0100' })).status).toBe(200);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('needs no token for reads', async () => {
     const browser = await world.signedIn('adminOrg1');
     browser.sendCsrfHeader = false;
     expect((await browser.get('/api/users')).status).toBe(200);
-  });
+  }, SPEC_TIMEOUT_MS);
 });

@@ -1,3 +1,4 @@
+import { SPEC_TIMEOUT_MS } from './support/world';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -15,8 +16,8 @@ describe('demo accounts', () => {
 
   beforeAll(async () => {
     db = await createTestDatabase('cw_demo');
-  });
-  afterAll(async () => db.drop());
+  }, SPEC_TIMEOUT_MS);
+  afterAll(async () => db.drop(), SPEC_TIMEOUT_MS);
 
   it('lists one account per role plus an administrator, all at reserved example domains', () => {
     expect(DEMO_ACCOUNTS.map((account) => `${account.role}${account.isAdmin ? ' (admin)' : ''}`).sort()).toEqual(['contractor', 'manager', 'manager (admin)', 'tenant']);
@@ -37,7 +38,7 @@ describe('demo accounts', () => {
     for (const account of DEMO_ACCOUNTS) expect(await passwords.verifyCredentials(account.email, account.password)).withContext(account.email).not.toBeNull();
     const [tenant] = await db.dataSource.query(`SELECT unit_id FROM app_user WHERE role = 'tenant'`);
     expect(tenant.unit_id).toBe(context.facts.demoTenantUnitId);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('joins the demo fleet when seeded with it: same organization, the tenant in one of its units', async () => {
     const fleetDb = await createTestDatabase('cw_demo_fleet');
@@ -57,7 +58,7 @@ describe('demo accounts', () => {
       await fleetDb.drop();
       fs.rmSync(dataDir, { recursive: true, force: true });
     }
-  });
+  }, SPEC_TIMEOUT_MS);
 });
 
 function passwordCheck(dataSource: DataSource): PasswordService {

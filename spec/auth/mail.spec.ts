@@ -6,7 +6,7 @@ import { startFakeSmtp, type FakeSmtp } from '../../server/mail/fake-smtp';
 import { createSmtpMailer } from '../../server/mail/mailer';
 import { devInboxAllowed, startMail } from '../../server/mail/setup';
 import { invitationMail, passwordResetMail } from '../../server/mail/templates';
-import { createWorld, mailAfter, type World } from './support/world';
+import { createWorld, mailAfter, type World, SPEC_TIMEOUT_MS } from './support/world';
 
 describe('e-mail templates', () => {
   it('name the product, link the page, and say the same in text and HTML', () => {
@@ -45,11 +45,11 @@ describe('the fake SMTP server', () => {
   beforeAll(async () => {
     folder = fs.mkdtempSync(path.join(os.tmpdir(), 'cw-smtp-'));
     smtp = await startFakeSmtp({ inboxFolder: folder });
-  });
+  }, SPEC_TIMEOUT_MS);
   afterAll(async () => {
     await smtp.close();
     fs.rmSync(folder, { recursive: true, force: true });
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('receives what nodemailer sends over SMTP and files it as an .eml file', async () => {
     const mailer = createSmtpMailer({ smtpUrl: smtp.url, from: 'Chillwarden <no-reply@chillwarden.example.com>', local: true });
@@ -62,12 +62,12 @@ describe('the fake SMTP server', () => {
     const message = await smtp.inbox.latestTo('pat@example.com');
     expect(message).toEqual(jasmine.objectContaining({ subject: 'Hello from a spec', links: ['http://127.0.0.1:4280/sign-in'], html: '<p>Open it</p>' }));
     expect(message?.from).toContain('no-reply@chillwarden.example.com');
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('refuses to read files outside its folder', async () => {
     expect(smtp.inbox.raw('../../etc/passwd')).toBeNull();
     expect(await smtp.inbox.get('1234')).toBeNull();
-  });
+  }, SPEC_TIMEOUT_MS);
 });
 
 describe('mail set-up', () => {
@@ -95,7 +95,7 @@ describe('mail set-up', () => {
     } finally {
       fs.rmSync(dataDir, { recursive: true, force: true });
     }
-  });
+  }, SPEC_TIMEOUT_MS);
 });
 
 describe('the dev inbox routes', () => {
@@ -103,8 +103,8 @@ describe('the dev inbox routes', () => {
 
   beforeAll(async () => {
     world = await createWorld();
-  });
-  afterAll(async () => world.close());
+  }, SPEC_TIMEOUT_MS);
+  afterAll(async () => world.close(), SPEC_TIMEOUT_MS);
 
   it('lists messages and shows one with its links, as JSON and as a page', async () => {
     const admin = await world.signedIn('adminOrg1');
@@ -122,5 +122,5 @@ describe('the dev inbox routes', () => {
     const raw = await browser.get(`/api/dev/inbox/${message.id}/raw`);
     expect(raw.headers['content-type']).toContain('message/rfc822');
     expect((await browser.get('/api/dev/inbox/0000000000000-00000000')).status).toBe(404);
-  });
+  }, SPEC_TIMEOUT_MS);
 });

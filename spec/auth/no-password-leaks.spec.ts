@@ -1,6 +1,6 @@
 import type { Response } from 'supertest';
 import { routeTableOf } from '../../server/auth/route-table';
-import { createWorld, mailAfter, tokenFromLink, type World } from './support/world';
+import { createWorld, mailAfter, tokenFromLink, type World, SPEC_TIMEOUT_MS } from './support/world';
 
 /**
  * Passwords never come back from any route and never reach the log: every response body
@@ -58,8 +58,8 @@ describe('passwords are never returned or logged', () => {
     keep(await invitee.post('/api/auth/sign-out'));
     // Let background e-mails and their log lines finish.
     await new Promise((resolve) => setTimeout(resolve, 200));
-  });
-  afterAll(async () => world.close());
+  }, SPEC_TIMEOUT_MS);
+  afterAll(async () => world.close(), SPEC_TIMEOUT_MS);
 
   it('went through every account flow successfully', () => {
     const statuses = responses.map((res) => `${requestOf(res).method} ${requestOf(res).path} ${res.status}`);

@@ -1,4 +1,4 @@
-import { createWorld, type World } from './support/world';
+import { createWorld, type World, SPEC_TIMEOUT_MS } from './support/world';
 
 describe('rate limits on sign-in and password reset', () => {
   let world: World;
@@ -9,8 +9,8 @@ describe('rate limits on sign-in and password reset', () => {
     world = await createWorld({
       rateLimits: { signInFailuresPerAccount: PER_ACCOUNT, signInFailuresPerIp: PER_IP, resetRequestsPerAccount: 2, resetRequestsPerIp: 1000, tokenFailuresPerIp: 4 },
     });
-  });
-  afterAll(async () => world.close());
+  }, SPEC_TIMEOUT_MS);
+  afterAll(async () => world.close(), SPEC_TIMEOUT_MS);
 
   /** Each spec poses as its own client address, so per-IP counts do not leak between them. */
   const browserAt = (clientIp: string) => {
@@ -31,7 +31,7 @@ describe('rate limits on sign-in and password reset', () => {
     expect(refused.body.error).toBe('Too many failed sign-ins for this account. Wait 15 minutes, or reset your password.');
     expect(refused.body.retryAfterSeconds).toBeGreaterThan(0);
     expect(refused.headers['retry-after']).toBeDefined();
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('does not count successful sign-ins', async () => {
     const { tenantB } = world.fixtures.users;
@@ -39,7 +39,7 @@ describe('rate limits on sign-in and password reset', () => {
       const res = await browserAt('192.0.2.2').signIn(tenantB.email, tenantB.password);
       expect(res.status).withContext(`sign-in ${attempt}`).toBe(200);
     }
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('limits failed sign-ins per IP address across accounts', async () => {
     const browser = browserAt('192.0.2.3');
@@ -54,7 +54,7 @@ describe('rate limits on sign-in and password reset', () => {
     // Another address is not affected.
     const elsewhere = await browserAt('192.0.2.4').signIn('yet-another@example.com', 'guessing again');
     expect(elsewhere.status).toBe(401);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('limits reset requests per address, answering the same whether or not the account exists', async () => {
     const browser = browserAt('192.0.2.5');
@@ -66,7 +66,7 @@ describe('rate limits on sign-in and password reset', () => {
       expect(third.status).withContext(email).toBe(429);
       expect(third.body.error).toMatch(/Too many reset requests for this address/);
     }
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('limits guesses at reset and invitation links per IP', async () => {
     const browser = browserAt('192.0.2.6');
@@ -77,5 +77,5 @@ describe('rate limits on sign-in and password reset', () => {
       statuses.push(res.status);
     }
     expect(statuses).toEqual([400, 400, 400, 400, 429]);
-  });
+  }, SPEC_TIMEOUT_MS);
 });

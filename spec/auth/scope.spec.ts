@@ -1,7 +1,7 @@
 import type { Actor } from '../../server/auth/actor';
 import { Scope } from '../../server/auth/scope';
 import { Unit } from '../../server/entities/unit';
-import { createWorld, type Person, type World } from './support/world';
+import { createWorld, type Person, type World, SPEC_TIMEOUT_MS } from './support/world';
 
 describe('Scope: who reaches which unit and appliance', () => {
   let world: World;
@@ -14,8 +14,8 @@ describe('Scope: who reaches which unit and appliance', () => {
   beforeAll(async () => {
     world = await createWorld();
     scope = new Scope(world.db.dataSource);
-  });
-  afterAll(async () => world.close());
+  }, SPEC_TIMEOUT_MS);
+  afterAll(async () => world.close(), SPEC_TIMEOUT_MS);
 
   it('gives a tenant their own unit and its appliance, and nothing else', async () => {
     const { org1, org2 } = world.fixtures;
@@ -26,7 +26,7 @@ describe('Scope: who reaches which unit and appliance', () => {
     expect(await scope.canReadAppliance(actor('tenantB'), org1.applianceA)).toBeFalse();
     expect(await scope.canReadUnit(actor('tenantA'), org2.unitC)).toBeFalse();
     expect(await scope.canReadProperty(actor('tenantA'), org1.propertyId)).toBeFalse();
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('gives a manager their whole organization and nothing of another', async () => {
     const { org1, org2 } = world.fixtures;
@@ -39,7 +39,7 @@ describe('Scope: who reaches which unit and appliance', () => {
     }
     expect(await scope.canReadAppliance(actor('adminOrg2'), org2.applianceC)).toBeTrue();
     expect(await scope.canReadAppliance(actor('adminOrg2'), org1.applianceA)).toBeFalse();
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('answers "not found" alike for another organization\'s record and a missing one', async () => {
     const someone = actor('adminOrg2');
@@ -47,7 +47,7 @@ describe('Scope: who reaches which unit and appliance', () => {
     const missing = await scope.requireAppliance(someone, '00000000-0000-4000-8000-000000000000').catch((error) => error);
     const malformed = await scope.requireAppliance(someone, 'not-a-uuid').catch((error) => error);
     for (const error of [outOfScope, missing, malformed]) expect({ status: error.status, message: error.message }).toEqual({ status: 404, message: 'appliance not found' });
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('narrows unit lists to what the actor reaches', async () => {
     const { org1, org2 } = world.fixtures;
@@ -59,7 +59,7 @@ describe('Scope: who reaches which unit and appliance', () => {
     expect(await visible('adminOrg2')).toEqual([org2.unitC]);
     expect(await visible('tenantB')).toEqual([org1.unitB]);
     expect(await visible('contractorWithoutJob')).toEqual([]);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('ignores a unit that was archived', async () => {
     const { org1 } = world.fixtures;
@@ -70,5 +70,5 @@ describe('Scope: who reaches which unit and appliance', () => {
     } finally {
       await world.db.dataSource.query('UPDATE unit SET archived_at = NULL WHERE id = $1', [org1.unitB]);
     }
-  });
+  }, SPEC_TIMEOUT_MS);
 });

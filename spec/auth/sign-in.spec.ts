@@ -1,14 +1,14 @@
 import { BAD_CREDENTIALS } from '../../server/controllers/auth';
 import { cookieFrom, setCookieLine } from './support/browser';
-import { createWorld, type World } from './support/world';
+import { createWorld, type World, SPEC_TIMEOUT_MS } from './support/world';
 
 describe('sign-in and sessions', () => {
   let world: World;
 
   beforeAll(async () => {
     world = await createWorld();
-  });
-  afterAll(async () => world.close());
+  }, SPEC_TIMEOUT_MS);
+  afterAll(async () => world.close(), SPEC_TIMEOUT_MS);
 
   it('signs in with e-mail and password and answers who is signed in', async () => {
     const { tenantA } = world.fixtures.users;
@@ -18,7 +18,7 @@ describe('sign-in and sessions', () => {
     expect(res.body.user).toEqual(jasmine.objectContaining({ id: tenantA.id, role: 'tenant', unitId: world.fixtures.org1.unitA, isAdmin: false }));
     const session = await browser.get('/api/auth/session');
     expect(session.body.user.email).toBe(tenantA.email);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('gives the same answer for an unknown address, a wrong password and a deactivated account', async () => {
     const { tenantB, bystander } = world.fixtures.users;
@@ -37,7 +37,7 @@ describe('sign-in and sessions', () => {
     } finally {
       await world.db.dataSource.query('UPDATE app_user SET deactivated_at = NULL WHERE id = $1', [bystander.id]);
     }
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('changes the session id at sign-in, so a session id known before is worth nothing (fixation)', async () => {
     const browser = world.browser();
@@ -55,7 +55,7 @@ describe('sign-in and sessions', () => {
     const asAttacker = await attacker.agent.get('/api/auth/session').set('Cookie', `chillwarden.sid=${encodeURIComponent(sidBefore as string)}`);
     expect(asAttacker.body.user).toBeNull();
     expect((await browser.get('/api/profile')).status).toBe(200);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('sets the session cookie HttpOnly and SameSite=Lax, and the CSRF cookie readable by the page', async () => {
     const { tenantA } = world.fixtures.users;
@@ -69,7 +69,7 @@ describe('sign-in and sessions', () => {
     const csrf = setCookieLine(res, 'XSRF-TOKEN') ?? '';
     expect(csrf).not.toMatch(/HttpOnly/i);
     expect(csrf).toMatch(/SameSite=Lax/i);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('destroys the session at sign-out: the old cookie no longer signs anyone in', async () => {
     const browser = await world.signedIn('tenantB');
@@ -82,7 +82,7 @@ describe('sign-in and sessions', () => {
     expect(replay.status).toBe(401);
     const [row] = await world.db.dataSource.query(`SELECT count(*)::int AS n FROM http_session WHERE sid = $1`, [sid.slice(2).split('.')[0]]);
     expect(row.n).toBe(0);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('ends the sessions of a user who is deactivated', async () => {
     const browser = await world.signedIn('contractorWithoutJob');
@@ -92,7 +92,7 @@ describe('sign-in and sessions', () => {
     expect(res.status).toBe(200);
     expect((await browser.get('/api/profile')).status).toBe(401);
     await admin.post(`/api/users/${world.fixtures.users.contractorWithoutJob.id}/reactivate`);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('ends a session seven days after sign-in however active it was', async () => {
     const browser = await world.signedIn('tenantA');
@@ -101,7 +101,7 @@ describe('sign-in and sessions', () => {
     world.clock.advance(1 * 24 * 3600_000 + 60_000);
     expect((await browser.get('/api/profile')).status).toBe(401);
     expect((await browser.get('/api/auth/session')).body.user).toBeNull();
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('records sign-ins and failed sign-ins in the audit log, without the password', async () => {
     const { tenantB } = world.fixtures.users;
@@ -112,7 +112,7 @@ describe('sign-in and sessions', () => {
     expect(actions).toContain('sign-in-failed');
     expect(actions).toContain('sign-in');
     expect(JSON.stringify(rows)).not.toContain('a-wrong-password-here');
-  });
+  }, SPEC_TIMEOUT_MS);
 });
 
 describe('sign-in behind HTTPS', () => {
@@ -120,8 +120,8 @@ describe('sign-in behind HTTPS', () => {
 
   beforeAll(async () => {
     world = await createWorld({ publicUrl: 'https://chillwarden.example.com' });
-  });
-  afterAll(async () => world.close());
+  }, SPEC_TIMEOUT_MS);
+  afterAll(async () => world.close(), SPEC_TIMEOUT_MS);
 
   it('marks the session and CSRF cookies Secure', async () => {
     const { tenantA } = world.fixtures.users;
@@ -141,5 +141,5 @@ describe('sign-in behind HTTPS', () => {
       .send({ email: tenantA.email, password: tenantA.password });
     expect(res.status).toBe(200);
     expect(setCookieLine(res, 'chillwarden.sid')).toMatch(/; Secure/);
-  });
+  }, SPEC_TIMEOUT_MS);
 });

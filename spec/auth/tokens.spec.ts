@@ -2,15 +2,15 @@ import { hashToken } from '../../server/auth/tokens';
 import { INVALID_INVITATION_LINK } from '../../server/services/invitations';
 import { INVALID_RESET_LINK } from '../../server/services/passwords';
 import type { InboxMessage } from '../../server/mail/inbox';
-import { createWorld, mailAfter, tokenFromLink, type World } from './support/world';
+import { createWorld, mailAfter, tokenFromLink, type World, SPEC_TIMEOUT_MS } from './support/world';
 
 describe('password reset links', () => {
   let world: World;
 
   beforeAll(async () => {
     world = await createWorld();
-  });
-  afterAll(async () => world.close());
+  }, SPEC_TIMEOUT_MS);
+  afterAll(async () => world.close(), SPEC_TIMEOUT_MS);
 
   async function requestReset(email: string): Promise<string> {
     const browser = world.browser();
@@ -39,7 +39,7 @@ describe('password reset links', () => {
     expect(again.body.error).toBe(INVALID_RESET_LINK);
     expect((await world.browser().signIn(tenantB.email, 'second new passphrase')).status).toBe(401);
     await world.db.dataSource.query('UPDATE app_user SET password_hash = (SELECT password_hash FROM app_user WHERE id = $1) WHERE id = $1', [tenantB.id]);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('refuses a link after an hour', async () => {
     const { contractorWithJob } = world.fixtures.users;
@@ -48,14 +48,14 @@ describe('password reset links', () => {
     const res = await reset(token, 'too late passphrase');
     expect(res.status).toBe(400);
     expect(res.body.error).toBe(INVALID_RESET_LINK);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('accepts a link just inside the hour', async () => {
     const { contractorWithoutJob } = world.fixtures.users;
     const token = await requestReset(contractorWithoutJob.email);
     world.clock.advance(59 * 60_000);
     expect((await reset(token, 'just in time passphrase')).status).toBe(204);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('lets only the newest link work', async () => {
     const { managerOrg1 } = world.fixtures.users;
@@ -64,7 +64,7 @@ describe('password reset links', () => {
     expect(newer).not.toBe(older);
     expect((await reset(older, 'from the older link')).status).toBe(400);
     expect((await reset(newer, 'from the newer link')).status).toBe(204);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('stores only the hash of the token', async () => {
     const { adminOrg2 } = world.fixtures.users;
@@ -72,7 +72,7 @@ describe('password reset links', () => {
     const rows = await world.db.dataSource.query('SELECT token_hash FROM password_reset WHERE user_id = $1', [adminOrg2.id]);
     expect(rows.map((row: { token_hash: string }) => row.token_hash)).toContain(hashToken(token));
     expect(JSON.stringify(rows)).not.toContain(token);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('keeps the token out of the URL the server sees (it is in the fragment)', async () => {
     const token = await requestReset(world.fixtures.users.tenantA.email);
@@ -81,7 +81,7 @@ describe('password reset links', () => {
     expect(link.pathname).toBe('/reset-password');
     expect(link.search).toBe('');
     expect(link.hash).toBe(`#${token}`);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('signs the account out everywhere after a reset', async () => {
     const { adminOrg1 } = world.fixtures.users;
@@ -90,7 +90,7 @@ describe('password reset links', () => {
     const notice = await mailAfter(world, adminOrg1.email, async () => expect((await reset(token, 'after the reset passphrase')).status).toBe(204));
     expect(notice.subject).toBe('Your Chillwarden password was changed');
     expect((await elsewhere.get('/api/profile')).status).toBe(401);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('sends nothing for an unknown or deactivated address, with the same answer', async () => {
     const { bystander } = world.fixtures.users;
@@ -107,7 +107,7 @@ describe('password reset links', () => {
     const fresh = await Promise.all(world.smtp.inbox.ids().filter((id) => !known.has(id)).map((id) => world.smtp.inbox.get(id)));
     expect(fresh.filter((message) => /never-registered|bystander/.test(message?.to ?? ''))).toEqual([]);
     await world.db.dataSource.query('UPDATE app_user SET deactivated_at = NULL WHERE id = $1', [bystander.id]);
-  });
+  }, SPEC_TIMEOUT_MS);
 });
 
 describe('invitation links', () => {
@@ -115,8 +115,8 @@ describe('invitation links', () => {
 
   beforeAll(async () => {
     world = await createWorld();
-  });
-  afterAll(async () => world.close());
+  }, SPEC_TIMEOUT_MS);
+  afterAll(async () => world.close(), SPEC_TIMEOUT_MS);
 
   async function invite(email: string, extra: Record<string, unknown> = {}): Promise<string> {
     const admin = await world.signedIn('adminOrg1');
@@ -152,7 +152,7 @@ describe('invitation links', () => {
     expect(again.status).toBe(400);
     expect(again.body.error).toBe(INVALID_INVITATION_LINK);
     expect((await browser.post('/api/invitations/preview', { token })).status).toBe(400);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('expires after seven days', async () => {
     const token = await invite('slow.reader@example.com');
@@ -160,7 +160,7 @@ describe('invitation links', () => {
     const browser = await anonymous();
     expect((await browser.post('/api/invitations/preview', { token })).status).toBe(400);
     expect((await browser.post('/api/invitations/accept', { token, password: 'a late passphrase' })).status).toBe(400);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('stops working when withdrawn, or replaced by a newer invitation', async () => {
     const first = await invite('twice.invited@example.com');
@@ -172,7 +172,7 @@ describe('invitation links', () => {
     const pending = (await admin.get('/api/invitations')).body.find((row: { email: string; status: string }) => row.email === 'twice.invited@example.com' && row.status === 'pending');
     expect((await admin.delete(`/api/invitations/${pending.id}`)).status).toBe(204);
     expect((await browser.post('/api/invitations/accept', { token: second, password: 'withdrawn passphrase' })).status).toBe(400);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('refuses a weak password without spending the link', async () => {
     const token = await invite('careful.chooser@example.com');
@@ -183,7 +183,7 @@ describe('invitation links', () => {
     expect(common.status).toBe(400);
     expect(common.body.details[0].message).toMatch(/too common/);
     expect((await browser.post('/api/invitations/accept', { token, password: 'a better passphrase' })).status).toBe(201);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('lets only an administrator invite a manager', async () => {
     const manager = await world.signedIn('managerOrg1');
@@ -191,20 +191,20 @@ describe('invitation links', () => {
     expect(res.status).toBe(403);
     const admin = await world.signedIn('adminOrg1');
     expect((await admin.post('/api/invitations', { email: 'new.manager@example.com', displayName: 'New Manager', role: 'manager', isAdmin: true })).status).toBe(201);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it("refuses a unit of another organization as if it did not exist", async () => {
     const admin = await world.signedIn('adminOrg1');
     const res = await admin.post('/api/invitations', { email: 'wrong.unit@example.com', displayName: 'Wrong Unit', role: 'tenant', unitId: world.fixtures.org2.unitC });
     expect(res.status).toBe(404);
     expect(res.body.error).toBe('unit not found');
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('refuses to invite an address that already has an account', async () => {
     const admin = await world.signedIn('adminOrg1');
     const res = await admin.post('/api/invitations', { email: world.fixtures.users.tenantB.email.toUpperCase(), displayName: 'Again', role: 'contractor' });
     expect(res.status).toBe(409);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('withdraws the invitation when the e-mail cannot be sent', async () => {
     const failing = await createWorld({ mailer: { send: async () => Promise.reject(new Error('relay down')), close() {} } });
@@ -217,5 +217,5 @@ describe('invitation links', () => {
     } finally {
       await failing.close();
     }
-  });
+  }, SPEC_TIMEOUT_MS);
 });

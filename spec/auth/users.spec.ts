@@ -2,15 +2,15 @@ import pino from 'pino';
 import { buildAccountServices } from '../../server/auth/accounts';
 import { loadConfig } from '../../server/config';
 import type { UserSummary } from '../../shared/api/users';
-import { createWorld, mailAfter, type World } from './support/world';
+import { createWorld, mailAfter, type World, SPEC_TIMEOUT_MS } from './support/world';
 
 describe('user management (administrators)', () => {
   let world: World;
 
   beforeAll(async () => {
     world = await createWorld();
-  });
-  afterAll(async () => world.close());
+  }, SPEC_TIMEOUT_MS);
+  afterAll(async () => world.close(), SPEC_TIMEOUT_MS);
 
   it("lists only the organization's users, paged, filtered and sorted", async () => {
     const admin = await world.signedIn('adminOrg1');
@@ -31,7 +31,7 @@ describe('user management (administrators)', () => {
     expect((await admin.get('/api/users?q=TENANTB')).body.items.map((user: UserSummary) => user.email)).toEqual(['tenantb@example.com']);
     expect((await admin.get('/api/users?q=%25')).body.items).toEqual([]);
     expect((await admin.get('/api/users?pageSize=5000')).status).toBe(400);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('moves a tenant to another unit of the organization, but not to one elsewhere', async () => {
     const admin = await world.signedIn('adminOrg1');
@@ -42,7 +42,7 @@ describe('user management (administrators)', () => {
     const elsewhere = await admin.patch(`/api/users/${bystander.id}`, { unitId: world.fixtures.org2.unitC });
     expect(elsewhere.status).toBe(404);
     await admin.patch(`/api/users/${bystander.id}`, { unitId: world.fixtures.org1.unitA });
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('changes a role, clearing what the new role does not have, and takes effect on the next request', async () => {
     const admin = await world.signedIn('adminOrg1');
@@ -63,14 +63,14 @@ describe('user management (administrators)', () => {
     const entries = await world.db.dataSource.query(`SELECT detail FROM audit_log WHERE action = 'role-changed' AND target_id = $1 AND detail->'to'->>'role' = 'manager'`, [bystander.id]);
     expect(entries.length).toBe(1);
     expect(entries[0].detail.from).toEqual({ role: 'tenant', isAdmin: false, unitId: world.fixtures.org1.unitA });
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('refuses to change or deactivate oneself, so an organization keeps its administrator', async () => {
     const admin = await world.signedIn('adminOrg1');
     const self = world.fixtures.users.adminOrg1.id;
     expect((await admin.patch(`/api/users/${self}`, { isAdmin: false })).status).toBe(409);
     expect((await admin.post(`/api/users/${self}/deactivate`)).status).toBe(409);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('deactivates and reactivates, recording both', async () => {
     const admin = await world.signedIn('adminOrg1');
@@ -85,14 +85,14 @@ describe('user management (administrators)', () => {
     const audit = await admin.get('/api/audit-log?pageSize=200');
     const actions = audit.body.items.filter((entry: { targetId: string }) => entry.targetId === tenantB.id).map((entry: { action: string }) => entry.action);
     expect(actions).toEqual(jasmine.arrayContaining(['user-deactivated', 'user-reactivated']));
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it("keeps each organization's audit log to itself", async () => {
     const admin2 = await world.signedIn('adminOrg2');
     const log = await admin2.get('/api/audit-log?pageSize=200');
     const orgOneUsers = new Set([world.fixtures.users.tenantB.id, world.fixtures.users.bystander.id]);
     expect(log.body.items.filter((entry: { targetId: string }) => orgOneUsers.has(entry.targetId))).toEqual([]);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('offers the units of the organization for invitations', async () => {
     const manager = await world.signedIn('managerOrg1');
@@ -101,7 +101,7 @@ describe('user management (administrators)', () => {
       { id: world.fixtures.org1.unitA, label: '1A', propertyName: 'Cedar Row' },
       { id: world.fixtures.org1.unitB, label: '1B', propertyName: 'Cedar Row' },
     ]);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('refuses user management to a service caller that is not an administrator (defence behind the route)', async () => {
     const services = buildAccountServices(world.db.dataSource, loadConfig({ NODE_ENV: 'test' }), pino({ level: 'silent' }));
@@ -113,7 +113,7 @@ describe('user management (administrators)', () => {
     }
     await expectAsync(services.invitations.list(tenant)).toBeRejectedWith(jasmine.objectContaining({ status: 403 }));
     await expectAsync(services.audit.list(manager, { page: 0, pageSize: 10 })).toBeRejectedWith(jasmine.objectContaining({ status: 403 }));
-  });
+  }, SPEC_TIMEOUT_MS);
 });
 
 describe('profile', () => {
@@ -121,14 +121,14 @@ describe('profile', () => {
 
   beforeAll(async () => {
     world = await createWorld();
-  });
-  afterAll(async () => world.close());
+  }, SPEC_TIMEOUT_MS);
+  afterAll(async () => world.close(), SPEC_TIMEOUT_MS);
 
   it("shows a tenant their own unit and organization", async () => {
     const tenant = await world.signedIn('tenantA');
     const profile = await tenant.get('/api/profile');
     expect(profile.body).toEqual(jasmine.objectContaining({ role: 'tenant', organizationName: 'Maplewood Homes (spec)', unit: { id: world.fixtures.org1.unitA, label: '1A', propertyName: 'Cedar Row' } }));
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('updates name, phone, temperature unit and time zone, and checks each', async () => {
     const browser = await world.signedIn('managerOrg1');
@@ -140,7 +140,7 @@ describe('profile', () => {
     expect(bad.status).toBe(400);
     expect(bad.body.details.map((detail: { path: string }) => detail.path).sort()).toEqual(['temperatureUnit', 'timeZone']);
     expect((await browser.patch('/api/profile', { role: 'manager', isAdmin: true })).status).toBe(400);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('changes the password with the current one, keeping this session and ending the others', async () => {
     const here = await world.signedIn('contractorWithJob');
@@ -156,7 +156,7 @@ describe('profile', () => {
     expect((await here.get('/api/profile')).status).toBe(200);
     expect((await elsewhere.get('/api/profile')).status).toBe(401);
     expect((await world.browser().signIn(contractorWithJob.email, 'a fresh passphrase')).status).toBe(200);
-  });
+  }, SPEC_TIMEOUT_MS);
 
   it('changes the e-mail address with the current password and tells the old address', async () => {
     const browser = await world.signedIn('tenantB');
@@ -170,5 +170,5 @@ describe('profile', () => {
     expect(notice.subject).toBe('Your Chillwarden e-mail address was changed');
     expect(notice.text).toContain('tenant.b.new@example.com');
     expect((await world.browser().signIn('tenant.b.new@example.com', tenantB.password)).status).toBe(200);
-  });
+  }, SPEC_TIMEOUT_MS);
 });

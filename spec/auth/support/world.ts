@@ -18,6 +18,9 @@ import { createTestDatabase, type TestDatabase } from '../../support/test-db';
 import { Browser } from './browser';
 import { ManualClock } from './manual-clock';
 
+/** Set-up and tear-down make a database and run every migration: give them room on a busy machine. */
+export const SPEC_TIMEOUT_MS = 60_000;
+
 /** Low bcrypt cost keeps specs fast; production uses DEFAULT_PASSWORD_HASH_ROUNDS. */
 export const SPEC_HASH_ROUNDS = 4;
 
