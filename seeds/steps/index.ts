@@ -2,5 +2,6 @@
 import type { SeedStep } from '../context';
 import { accountsStep } from './accounts';
 import { fleetStep } from './fleet';
+import { workOrdersStep } from './work-orders';
 
-export const SEED_STEPS: SeedStep[] = [fleetStep, accountsStep];
+export const SEED_STEPS: SeedStep[] = [fleetStep, accountsStep, workOrdersStep];
