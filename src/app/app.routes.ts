@@ -67,20 +67,18 @@ export const routes: Routes = [
     heading: 'No work orders',
     message: 'A work order is dispatched to the contractor who covers the building when a request needs a visit.',
   }),
-  emptyStateRoute('inventory', ['manager'], {
-    title: 'Inventory',
-    lead: 'Properties, units, appliances, sensors and contractors.',
-    icon: 'apartment',
-    heading: 'Nothing in the inventory yet',
-    message: 'Add a property with its units and appliances, or import them from a CSV file, then pair a sensor to each appliance.',
-  }),
-  emptyStateRoute('logger-files', ['manager'], {
-    title: 'Logger files',
-    lead: 'Analyse a stand-alone temperature logger’s CSV file with the same engine as live telemetry.',
-    icon: 'upload_file',
-    heading: 'No logger files analysed yet',
-    message: 'Upload a CSV with a timestamp column and fresh-food or freezer temperatures to see its chart and findings.',
-  }),
+  {
+    path: 'inventory',
+    title: 'Inventory · Chillwarden',
+    canMatch: [roleGuard('manager')],
+    loadChildren: () => import('./inventory/inventory.routes').then((m) => m.INVENTORY_ROUTES),
+  },
+  {
+    path: 'logger-files',
+    title: 'Logger files · Chillwarden',
+    canMatch: [roleGuard('manager')],
+    loadChildren: () => import('./logger-files/logger-files.routes').then((m) => m.LOGGER_FILE_ROUTES),
+  },
   emptyStateRoute('reports', ['manager'], {
     title: 'Reports',
     lead: 'Incidents, response times, first-visit fixes and spend across the fleet.',
@@ -88,13 +86,12 @@ export const routes: Routes = [
     heading: 'No history to report on yet',
     message: 'Reports fill in as incidents are opened and work orders are completed.',
   }),
-  emptyStateRoute('settings', ['manager'], {
-    title: 'Settings',
-    lead: 'Thresholds, grace periods, response targets and escalation times.',
-    icon: 'tune',
-    heading: 'Default settings are in force',
-    message: 'The food-safety limits of 40 °F for fresh food and 0 °F for freezers apply until you change them here.',
-  }),
+  {
+    path: 'settings',
+    title: 'Settings · Chillwarden',
+    canMatch: [roleGuard('manager')],
+    loadComponent: () => import('./settings/settings-page').then((m) => m.SettingsPage),
+  },
   emptyStateRoute('jobs', ['contractor'], {
     title: 'My jobs',
     lead: 'Work orders dispatched to you, soonest due first.',

@@ -1,0 +1,121 @@
+import { BreakpointObserver } from '@angular/cdk/layout';
+import { AfterViewInit, ChangeDetectionStrategy, Component, DestroyRef, computed, inject, viewChild } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
+import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatMenuModule } from '@angular/material/menu';
+import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { MatSort, MatSortModule } from '@angular/material/sort';
+import { MatTableModule } from '@angular/material/table';
+import { RouterLink } from '@angular/router';
+import { catchError, debounceTime, map, of } from 'rxjs';
+import { APPLIANCE_SORTS, type ApplianceQueryInput, type ApplianceView, type ArchiveFilter, type PropertyView } from '../../../shared/api/inventory';
+import type { ApplianceStyle } from '../../../shared/domain';
+import { EmptyState } from '../shared/empty-state/empty-state';
+import { ApplianceActions } from './appliance-actions';
+import { ApplianceInventoryApi } from './appliance-inventory-api';
+import { STYLE_CHOICES, STYLE_LABELS } from './labels';
+import { PagedTable, sortDirection, sortKey } from './paged-table';
+import { PropertyApi } from './property-api';
+
+/** Every appliance of the organization across properties, with its sensor; server-paged. */
+@Component({
+  selector: 'cw-appliance-list',
+  imports: [
+    EmptyState,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatMenuModule,
+    MatPaginatorModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    MatSortModule,
+    MatTableModule,
+    ReactiveFormsModule,
+    RouterLink,
+  ],
+  providers: [ApplianceActions],
+  templateUrl: './appliance-list.html',
+  styleUrl: './list.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class ApplianceList implements AfterViewInit {
+  private readonly api = inject(ApplianceInventoryApi);
+  private readonly destroyRef = inject(DestroyRef);
+  private readonly narrow = toSignal(inject(BreakpointObserver).observe('(max-width: 719px)').pipe(map((state) => state.matches)), { initialValue: false });
+  protected readonly actions = inject(ApplianceActions);
+
+  readonly sort = viewChild.required(MatSort);
+  readonly paginator = viewChild.required(MatPaginator);
+
+  protected readonly styleLabel = (style: ApplianceStyle) => STYLE_LABELS[style];
+  protected readonly styles = STYLE_CHOICES;
+  protected readonly table = new PagedTable<ApplianceView>();
+  protected readonly properties = toSignal(
+    inject(PropertyApi)
+      .list({ pageSize: 200, sort: 'name' })
+      .pipe(
+        map((page) => page.items),
+        catchError(() => of([] as PropertyView[])),
+      ),
+    { initialValue: [] as PropertyView[] },
+  );
+  protected readonly filters = new FormGroup({
+    q: new FormControl('', { nonNullable: true }),
+    propertyId: new FormControl('', { nonNullable: true }),
+    style: new FormControl<ApplianceStyle | ''>('', { nonNullable: true }),
+    status: new FormControl<ArchiveFilter>('active', { nonNullable: true }),
+  });
+  private readonly filterValues = toSignal(this.filters.valueChanges, { initialValue: this.filters.getRawValue() });
+  protected readonly columns = computed(() => (this.narrow() ? ['place', 'style', 'actions'] : ['place', 'style', 'model', 'installedOn', 'sensor', 'actions']));
+  protected readonly nothingYet = computed(() => {
+    const f = this.filterValues();
+    return this.table.loaded() && this.table.total() === 0 && !f.q && !f.propertyId && !f.style && f.status === 'active';
+  });
+
+  ngAfterViewInit(): void {
+    this.table.connect({
+      sort: this.sort(),
+      paginator: this.paginator(),
+      filters: this.filters.valueChanges.pipe(debounceTime(300)),
+      query: (sort, paginator): ApplianceQueryInput => {
+        const { q, propertyId, style, status } = this.filters.getRawValue();
+        return {
+          q: q.trim() || undefined,
+          propertyId: propertyId || undefined,
+          style: style || undefined,
+          status,
+          sort: sortKey(sort, APPLIANCE_SORTS, 'property'),
+          direction: sortDirection(sort),
+          page: paginator.pageIndex,
+          pageSize: paginator.pageSize,
+        };
+      },
+      fetch: (query) => this.api.list(query),
+      destroyRef: this.destroyRef,
+    });
+  }
+
+  protected async edit(appliance: ApplianceView): Promise<void> {
+    if (await this.actions.edit(appliance)) this.table.reload();
+  }
+
+  protected async pairSensor(appliance: ApplianceView): Promise<void> {
+    if (await this.actions.pairSensor(appliance)) this.table.reload();
+  }
+
+  protected archive(appliance: ApplianceView): void {
+    void this.actions.archive(appliance, () => this.table.reload());
+  }
+
+  protected async restore(appliance: ApplianceView): Promise<void> {
+    if (await this.actions.restore(appliance)) this.table.reload();
+  }
+}

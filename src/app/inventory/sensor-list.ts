@@ -1,0 +1,128 @@
+import { BreakpointObserver } from '@angular/cdk/layout';
+import { DatePipe } from '@angular/common';
+import { AfterViewInit, ChangeDetectionStrategy, Component, DestroyRef, computed, inject, viewChild } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
+import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatDialog } from '@angular/material/dialog';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatMenuModule } from '@angular/material/menu';
+import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { MatSort, MatSortModule } from '@angular/material/sort';
+import { MatTableModule } from '@angular/material/table';
+import { RouterLink } from '@angular/router';
+import { debounceTime, firstValueFrom, map, type Observable } from 'rxjs';
+import { SENSOR_SORTS, type ArchiveFilter, type SensorCredentials, type SensorQueryInput, type SensorView } from '../../../shared/api/inventory';
+import type { ApplianceStyle } from '../../../shared/domain';
+import { EmptyState } from '../shared/empty-state/empty-state';
+import { STYLE_LABELS, intervalLabel } from './labels';
+import { errorMessage } from './messages';
+import { MoveSensorDialog } from './move-sensor-dialog';
+import { PagedTable, sortDirection, sortKey } from './paged-table';
+import { SensorApi } from './sensor-api';
+import { SensorCredentialsDialog } from './sensor-credentials-dialog';
+
+/** The organization's sensors with where they sit; new secret, move, retire and restore. */
+@Component({
+  selector: 'cw-sensor-list',
+  imports: [
+    DatePipe,
+    EmptyState,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatMenuModule,
+    MatPaginatorModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    MatSortModule,
+    MatTableModule,
+    ReactiveFormsModule,
+    RouterLink,
+  ],
+  templateUrl: './sensor-list.html',
+  styleUrl: './list.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class SensorList implements AfterViewInit {
+  private readonly api = inject(SensorApi);
+  private readonly dialog = inject(MatDialog);
+  private readonly snackBar = inject(MatSnackBar);
+  private readonly destroyRef = inject(DestroyRef);
+  private readonly narrow = toSignal(inject(BreakpointObserver).observe('(max-width: 719px)').pipe(map((state) => state.matches)), { initialValue: false });
+
+  readonly sort = viewChild.required(MatSort);
+  readonly paginator = viewChild.required(MatPaginator);
+
+  protected readonly styleLabel = (style: ApplianceStyle) => STYLE_LABELS[style];
+  protected readonly intervalLabel = intervalLabel;
+  protected readonly table = new PagedTable<SensorView>();
+  protected readonly filters = new FormGroup({
+    q: new FormControl('', { nonNullable: true }),
+    status: new FormControl<ArchiveFilter>('active', { nonNullable: true }),
+  });
+  private readonly filterValues = toSignal(this.filters.valueChanges, { initialValue: this.filters.getRawValue() });
+  protected readonly columns = computed(() => (this.narrow() ? ['deviceId', 'place', 'actions'] : ['deviceId', 'place', 'interval', 'lastSeenAt', 'actions']));
+  protected readonly nothingYet = computed(() => this.table.loaded() && this.table.total() === 0 && !this.filterValues().q && this.filterValues().status === 'active');
+
+  ngAfterViewInit(): void {
+    this.table.connect({
+      sort: this.sort(),
+      paginator: this.paginator(),
+      filters: this.filters.valueChanges.pipe(debounceTime(300)),
+      query: (sort, paginator): SensorQueryInput => ({
+        q: this.filters.controls.q.value.trim() || undefined,
+        status: this.filters.controls.status.value,
+        sort: sortKey(sort, SENSOR_SORTS, 'deviceId'),
+        direction: sortDirection(sort),
+        page: paginator.pageIndex,
+        pageSize: paginator.pageSize,
+      }),
+      fetch: (query) => this.api.list(query),
+      destroyRef: this.destroyRef,
+    });
+  }
+
+  protected async newSecret(sensor: SensorView): Promise<void> {
+    const credentials = await this.run(this.api.newSecret(sensor.id));
+    if (credentials) this.dialog.open<SensorCredentialsDialog, SensorCredentials>(SensorCredentialsDialog, { data: credentials, disableClose: true, maxWidth: '95vw' });
+  }
+
+  protected move(sensor: SensorView): void {
+    this.dialog
+      .open<MoveSensorDialog, SensorView, SensorView>(MoveSensorDialog, { data: sensor, autoFocus: 'first-tabbable', maxWidth: '95vw' })
+      .afterClosed()
+      .subscribe((moved) => {
+        if (!moved) return;
+        this.snackBar.open(`Sensor ${moved.deviceId} now reports for ${moved.propertyName} · ${moved.unitLabel}.`, 'OK', { duration: 5000 });
+        this.table.reload();
+      });
+  }
+
+  protected async archive(sensor: SensorView): Promise<void> {
+    if (!(await this.run(this.api.archive(sensor.id)))) return;
+    const undo = this.snackBar.open(`Sensor ${sensor.deviceId} is retired: the broker refuses it from its next connection.`, 'Undo', { duration: 8000 });
+    undo.onAction().subscribe(() => void this.restore(sensor));
+  }
+
+  protected async restore(sensor: SensorView): Promise<void> {
+    if (await this.run(this.api.restore(sensor.id))) this.snackBar.open(`Sensor ${sensor.deviceId} is accepted again.`, 'OK', { duration: 5000 });
+  }
+
+  private async run<T>(call: Observable<T>): Promise<T | null> {
+    try {
+      const result = await firstValueFrom(call);
+      this.table.reload();
+      return result;
+    } catch (error) {
+      this.snackBar.open(errorMessage(error), 'OK', { duration: 8000 });
+      return null;
+    }
+  }
+}
