@@ -103,7 +103,7 @@ export const SETTING_DOCS: Record<keyof DetectionSettings, SettingDoc & { value:
   cusumReferenceSigma: { value: 1, unit: 'σ', reason: 'tabular CUSUM reference value K; larger than the textbook 0.5σ because the level series is autocorrelated (Montgomery, Introduction to SQC, ch. 9)' },
   cusumDecisionSigma: { value: 8, unit: 'σ', reason: 'tabular CUSUM decision interval H, raised from the textbook 5σ for the same reason' },
   freshMinRiseC: { value: 1.5, unit: '°C', reason: 'a warming trend must lift the fresh-food level at least this far above its own normal (common practice)' },
-  freezerMinRiseC: { value: 2, unit: '°C', reason: 'same for the freezer, which swings wider in normal use (common practice)' },
+  freezerMinRiseC: { value: 2.5, unit: '°C', reason: 'same for the freezer, which swings wider in normal use (common practice)' },
   continuousRunSpikeRatio: { value: 0.6, unit: '×', reason: 'readings swinging less than this share of their usual rise above the quarter-hour mean: the compressor no longer cycles (it runs on); corroborates a smaller warming (common practice)' },
   spikyRatio: { value: 1.5, unit: '×', reason: 'readings spiking this much more than usual: room air gets in (door seal); corroborates a smaller warming (common practice)' },
   sustainMinutes: { value: 45, unit: 'min', reason: 'the rise must last this long above the threshold before it is a trend' },
