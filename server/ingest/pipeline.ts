@@ -65,6 +65,12 @@ interface SortedBatch {
 
 const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
 
+/** SQLSTATE class 22 (data exception) or 23 (integrity constraint violation). */
+function isDataError(error: unknown): boolean {
+  const code = (error as { code?: unknown }).code;
+  return typeof code === 'string' && /^2[23]/.test(code);
+}
+
 /** Orders the readings the way detection wants them: per appliance, by reading time. */
 function byApplianceAndTime(a: StoredReading, b: StoredReading): number {
   const appliance = (a.applianceId ?? '').localeCompare(b.applianceId ?? '');
@@ -158,13 +164,19 @@ export class IngestPipeline {
     }
   }
 
-  /** Retries with exponential back-off until the batch is stored; null when stopped first. */
+  /**
+   * Retries with exponential back-off until the batch is stored; null when stopped first.
+   * A data error (SQLSTATE class 22 or 23) is no outage: retrying would block the ingest
+   * for good, so the batch is written in halves until the one refused message is found,
+   * and that one is stored as a `store-error` reject instead.
+   */
   private async writeWithRetry(batch: QueuedItem[]): Promise<StoredReading[] | null> {
     let delayMs = this.settings.backoffInitialMs;
     for (;;) {
       try {
         return await this.write(batch);
       } catch (error) {
+        if (isDataError(error)) return this.isolate(batch, error as Error);
         this.counters.retries++;
         this.counters.lastError = (error as Error).message;
         this.deps.logger.warn({ err: error, retryInMs: delayMs, batch: batch.length }, 'ingest: storing a batch failed; retrying');
@@ -173,6 +185,25 @@ export class IngestPipeline {
         delayMs = Math.min(delayMs * 2, this.settings.backoffMaxMs);
       }
     }
+  }
+
+  private async isolate(batch: QueuedItem[], error: Error): Promise<StoredReading[] | null> {
+    if (batch.length === 1) {
+      const [item] = batch;
+      if (!item.verdict.ok && item.verdict.reason === 'store-error') {
+        // Even its reject was refused: drop it (logged) rather than block the ingest.
+        this.deps.logger.error({ err: error, topic: item.message.topic }, 'ingest: could not store a reject; dropped');
+        return [];
+      }
+      this.deps.logger.error({ err: error, topic: item.message.topic }, 'ingest: the database refused a reading; stored as a reject');
+      const deviceId = item.verdict.ok ? item.verdict.reading.deviceId : item.verdict.deviceId;
+      return this.writeWithRetry([{ ...item, verdict: { ok: false, reason: 'store-error', detail: error.message.slice(0, 200), deviceId } }]);
+    }
+    const middle = Math.ceil(batch.length / 2);
+    const first = await this.writeWithRetry(batch.slice(0, middle));
+    if (!first) return null;
+    const second = await this.writeWithRetry(batch.slice(middle));
+    return second ? first.concat(second) : null;
   }
 
   private async write(batch: QueuedItem[]): Promise<StoredReading[]> {

@@ -25,6 +25,9 @@ export function payloadExcerpt(payload: Buffer): string {
   return payload.length > EXCERPT_BYTES ? `${printable}…` : printable;
 }
 
+/** PostgreSQL text cannot hold U+0000, and a topic or device id from the wire may. */
+const storable = (text: string | null) => (text === null ? null : text.replace(/\u0000/g, '·'));
+
 function sampled(entries: RejectEntry[]): RejectEntry[] {
   const seen = new Map<string, number>();
   return entries.filter((entry) => {
@@ -55,10 +58,10 @@ export async function writeRejects(db: Pool | PoolClient, entries: RejectEntry[]
     samples.map((e) => e.source),
     samples.map((e) => e.reason),
     samples.map((e) => e.sensorId),
-    samples.map((e) => e.deviceId),
-    samples.map((e) => e.topic),
-    samples.map((e) => e.detail),
-    samples.map((e) => e.payloadExcerpt),
+    samples.map((e) => storable(e.deviceId)),
+    samples.map((e) => storable(e.topic)),
+    samples.map((e) => storable(e.detail)),
+    samples.map((e) => storable(e.payloadExcerpt)),
     samples.map((e) => new Date(e.atMs)),
   ]);
   await db.query(UPSERT_COUNTS, [entries.map((e) => e.reason), entries.map((e) => e.sensorId), entries.map((e) => new Date(e.atMs))]);

@@ -59,12 +59,15 @@ function errorFlagOf(valueC: number): ProbeErrorFlag | null {
 
 type ProbeCheck = { valueC: number | null; flag: ProbeErrorFlag | null } | { outOfRange: number };
 
+/** 0.0001 °C is far below any probe's resolution; it also keeps values PostgreSQL's real can hold (1e-50 cannot). */
+const roundC = (valueC: number) => Math.round(valueC * 10_000) / 10_000;
+
 function checkProbe(valueC: number | null | undefined): ProbeCheck {
   if (valueC === null || valueC === undefined) return { valueC: null, flag: null };
   const flag = errorFlagOf(valueC);
   if (flag) return { valueC: null, flag };
   if (valueC < PROBE_VALID_MIN_C || valueC > PROBE_VALID_MAX_C) return { outOfRange: valueC };
-  return { valueC, flag: null };
+  return { valueC: roundC(valueC), flag: null };
 }
 
 function schemaDetail(issues: { path: PropertyKey[]; message: string }[]): string {
@@ -89,7 +92,7 @@ function toReading(payload: ReadingPayload, atMs: number, fresh: { valueC: numbe
     freezerC: freezer.valueC,
     freshFoodFlag: fresh.flag,
     freezerFlag: freezer.flag,
-    batteryV: payload.battery_v ?? null,
+    batteryV: payload.battery_v === undefined ? null : roundC(payload.battery_v),
     doorOpen: payload.door === undefined ? null : payload.door === 'open',
   };
 }

@@ -22,6 +22,7 @@ export const REJECT_REASONS = {
   'future-timestamp': 'reading time is ahead of the server clock',
   'too-old': 'reading time is older than the raw-reading retention',
   'unknown-sensor': 'no registered sensor has this device id',
+  'store-error': 'the database refused this one reading (a data error); counted, not retried',
 } as const;
 export type RejectReason = keyof typeof REJECT_REASONS;
 

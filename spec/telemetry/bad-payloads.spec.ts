@@ -95,4 +95,24 @@ describe('ingest: bad payloads through the real broker', () => {
     await eventually('the unknown-sensor reject', async () => (await countRows(db.dataSource, `SELECT coalesce(sum(count), 0) AS n FROM telemetry_reject_count WHERE reason = 'unknown-sensor'`)) === 1);
     expect(await countRows(db.dataSource, 'SELECT count(*) AS n FROM reading WHERE sensor_id = $1', [archived.sensorId])).toBe(0);
   }, 30_000);
+
+  it('stores the rest of a batch the database partly refuses, and counts the refused reading', async () => {
+    const victim = await createDevice(db.dataSource, await createPlacement(db.dataSource));
+    const victimClient = await connectDevice(`mqtt://127.0.0.1:${broker.port}`, victim);
+    // A data error no validation foresaw, forced with a constraint: it must not block the ingest.
+    await db.dataSource.query('ALTER TABLE reading ADD CONSTRAINT spec_refuses_seq_913 CHECK (seq <> 913)');
+    try {
+      const topic = readingTopic(victim.deviceId);
+      const batch = [910, 911, 912, 913, 914, 915].map((seq) => ({ topic, payload: JSON.stringify({ sensor: victim.deviceId, seq, at: at(1000 - seq), fresh_food: seq === 911 ? 1e-50 : 4 }) }));
+      await publishAll(victimClient, batch);
+      await eventually('the refused reading to be counted', async () => (await countRows(db.dataSource, `SELECT coalesce(sum(count), 0) AS n FROM telemetry_reject_count WHERE reason = 'store-error' AND sensor_id = $1`, [victim.sensorId])) === 1);
+      const stored: { seq: string; fresh_food_c: number }[] = await db.dataSource.query('SELECT seq, fresh_food_c FROM reading WHERE sensor_id = $1 ORDER BY seq', [victim.sensorId]);
+      expect(stored.map((row) => Number(row.seq))).toEqual([910, 911, 912, 914, 915]);
+      // A value too small for PostgreSQL's real is rounded to 0.0001 °C steps, not refused.
+      expect(stored[1].fresh_food_c).toBe(0);
+    } finally {
+      await db.dataSource.query('ALTER TABLE reading DROP CONSTRAINT spec_refuses_seq_913');
+      await victimClient.endAsync();
+    }
+  }, 30_000);
 });

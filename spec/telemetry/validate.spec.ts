@@ -54,6 +54,11 @@ describe('ingest: validating one message', () => {
     expect(verdict.notes.map((note) => note.reason)).toEqual(['sensor-error-value', 'sensor-error-value']);
   });
 
+  it('rounds values to 0.0001 °C, far below any probe resolution', () => {
+    const verdict = validateMessage(readingTopic(DEVICE), json({ ...good, fresh_food: 3.123456, freezer: 1e-50 }), LIMITS);
+    expect(verdict.ok && [verdict.reading.freshFoodC, verdict.reading.freezerC]).toEqual([3.1235, 0]);
+  });
+
   it('accepts the edges of the plausible range', () => {
     expect(validateMessage(readingTopic(DEVICE), json({ ...good, fresh_food: 60, freezer: -60 }), LIMITS).ok).toBeTrue();
   });
