@@ -47,12 +47,12 @@ async function incidentsById(db: Db, ids: string[]): Promise<Map<string, Inciden
   return new Map(rows.map((row) => [row.id as string, incidentViewOf(row)]));
 }
 
-/** Requests matching a condition over alias r (with its parameters), newest first. */
+/** Requests matching a condition over alias r (with its parameters), newest first; each with its active (else latest) job. */
 export async function requestViews(db: Db, where: string, params: unknown[], page = { limit: 200, offset: 0 }): Promise<ServiceRequestView[]> {
   const rows: Row[] = await db.query(
     `SELECT r.*, wo.id AS wo_id, wo.state AS wo_state, wo.scheduled_start_at, wo.scheduled_end_at, wo.due_at, c.name AS contractor_name
        FROM service_request r
-       LEFT JOIN LATERAL (SELECT * FROM work_order w WHERE w.service_request_id = r.id ORDER BY w.created_at DESC LIMIT 1) wo ON true
+       LEFT JOIN LATERAL (SELECT * FROM work_order w WHERE w.service_request_id = r.id ORDER BY w.state NOT IN ('verified','declined','cancelled') DESC, w.created_at DESC LIMIT 1) wo ON true
        LEFT JOIN contractor c ON c.id = wo.contractor_id
       WHERE ${where} ORDER BY r.opened_at DESC, r.id LIMIT ${page.limit} OFFSET ${page.offset}`,
     params,
