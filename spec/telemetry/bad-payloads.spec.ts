@@ -55,7 +55,7 @@ describe('ingest: bad payloads through the real broker', () => {
       { topic, payload: reading(22) },
     ]);
 
-    await eventually('the good readings', async () => (await countRows(db.dataSource, 'SELECT count(*) AS n FROM reading')) === 3);
+    await eventually('the good readings', async () => (await countRows(db.dataSource, 'SELECT count(*) AS n FROM reading WHERE sensor_id = $1', [device.sensorId])) === 3);
     await worker.idle();
     const counts: { reason: string; count: string }[] = await db.dataSource.query('SELECT reason, count FROM telemetry_reject_count WHERE sensor_id = $1', [device.sensorId]);
     const byReason = Object.fromEntries(counts.map((row) => [row.reason, Number(row.count)]));
@@ -63,14 +63,14 @@ describe('ingest: bad payloads through the real broker', () => {
     for (const [reason] of bad) expected[reason] = (expected[reason] ?? 0) + 1;
     expect(byReason).toEqual(expected);
 
-    const flagged = await db.dataSource.query('SELECT seq, fresh_food_c, fresh_food_flag, freezer_c, freezer_flag FROM reading ORDER BY seq');
+    const flagged = await db.dataSource.query('SELECT seq, fresh_food_c, fresh_food_flag, freezer_c, freezer_flag FROM reading WHERE sensor_id = $1 ORDER BY seq', [device.sensorId]);
     expect(flagged).toEqual([
       { seq: '20', fresh_food_c: null, fresh_food_flag: 'disconnected', freezer_c: -18, freezer_flag: null },
       { seq: '21', fresh_food_c: 3.5, fresh_food_flag: null, freezer_c: null, freezer_flag: 'power-on' },
       { seq: '22', fresh_food_c: 3.5, fresh_food_flag: null, freezer_c: -18, freezer_flag: null },
     ]);
     // The flagged values never reach the rollups.
-    const [rollup] = await db.dataSource.query('SELECT min(fresh_food_min) AS ff_min, max(freezer_max) AS fz_max FROM reading_rollup_1h');
+    const [rollup] = await db.dataSource.query('SELECT min(fresh_food_min) AS ff_min, max(freezer_max) AS fz_max FROM reading_rollup_1h WHERE appliance_id = $1', [device.applianceId]);
     expect(rollup).toEqual({ ff_min: 3.5, fz_max: -18 });
 
     const samples: { reason: string; payload_excerpt: string }[] = await db.dataSource.query('SELECT reason, payload_excerpt FROM telemetry_reject WHERE sensor_id = $1', [device.sensorId]);
@@ -105,6 +105,7 @@ describe('ingest: bad payloads through the real broker', () => {
       const topic = readingTopic(victim.deviceId);
       const batch = [910, 911, 912, 913, 914, 915].map((seq) => ({ topic, payload: JSON.stringify({ sensor: victim.deviceId, seq, at: at(1000 - seq), fresh_food: seq === 911 ? 1e-50 : 4 }) }));
       await publishAll(victimClient, batch);
+      await eventually('the other readings', async () => (await countRows(db.dataSource, 'SELECT count(*) AS n FROM reading WHERE sensor_id = $1', [victim.sensorId])) === 5);
       await eventually('the refused reading to be counted', async () => (await countRows(db.dataSource, `SELECT coalesce(sum(count), 0) AS n FROM telemetry_reject_count WHERE reason = 'store-error' AND sensor_id = $1`, [victim.sensorId])) === 1);
       const stored: { seq: string; fresh_food_c: number }[] = await db.dataSource.query('SELECT seq, fresh_food_c FROM reading WHERE sensor_id = $1 ORDER BY seq', [victim.sensorId]);
       expect(stored.map((row) => Number(row.seq))).toEqual([910, 911, 912, 914, 915]);
