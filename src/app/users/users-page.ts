@@ -69,7 +69,6 @@ export class UsersPage implements AfterViewInit {
 
   protected readonly columns = ['displayName', 'email', 'role', 'unit', 'status', 'actions'];
   protected readonly invitationColumns = ['email', 'role', 'unit', 'status', 'expiresAt', 'actions'];
-  protected readonly roleLabels = ROLE_LABELS;
   protected readonly unitLabel = unitLabel;
   protected readonly pageSize = PAGE_SIZE;
 
@@ -113,6 +112,10 @@ export class UsersPage implements AfterViewInit {
         }
       });
     this.loadInvitations();
+  }
+
+  protected roleLabel(role: Role): string {
+    return ROLE_LABELS[role];
   }
 
   protected isSelf(user: UserSummary): boolean {
