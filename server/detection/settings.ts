@@ -137,7 +137,10 @@ function defaultsFromDocs(): DetectionSettings {
 
 export const DEFAULT_SETTINGS: Readonly<DetectionSettings> = Object.freeze(defaultsFromDocs());
 
-/** Style defaults: chest freezers defrost by hand, so no defrost rhythm is expected. */
+/**
+ * Defaults per style. None differ yet: the engine learns each unit's own rhythm (a chest
+ * freezer simply never shows a defrost). This is where a manager's per-style overrides go.
+ */
 const STYLE_DEFAULTS: Partial<Record<ApplianceStyle, Partial<DetectionSettings>>> = {};
 
 export type SettingsOverride = Partial<DetectionSettings>;
