@@ -29,7 +29,7 @@ async function banner(env) {
   } catch {
     // no demo accounts in this build
   }
-  lines.push(`  System status: ${env.PUBLIC_URL}/status`, `  Stop with Ctrl-C.`, ``);
+  lines.push(`  Fake e-mail inbox (invitations, resets, job e-mails): ${env.PUBLIC_URL}/dev/inbox`, `  System status: ${env.PUBLIC_URL}/status`, `  Stop with Ctrl-C.`, ``);
   process.stdout.write(lines.join('\n') + '\n');
 }
 
