@@ -10,7 +10,7 @@ import type { DataSource, EntityManager } from 'typeorm';
 import type { AttachmentKind, AttachmentView } from '../../shared/api/work-orders';
 import type { Actor } from '../auth/actor';
 import type { Clock } from '../auth/clock';
-import { conflict, notFound } from '../errors';
+import { badRequest, conflict, notFound } from '../errors';
 import type { ObjectStore } from '../storage/object-store';
 import { inspect, prepare, type PreparedUpload } from '../storage/uploads';
 import { recordChange } from '../work-orders/log';
@@ -96,7 +96,7 @@ export class AttachmentsService {
 
   /** A photo or invoice on a work order, by the contractor doing it or a manager. */
   async addToWorkOrder(actor: Actor, workOrderId: string, file: UploadedFile | undefined, kind: AttachmentKind): Promise<AttachmentView> {
-    if (!file) throw conflict('no file in the field "file"');
+    if (!file) throw badRequest('no file in the field "file"');
     const place = await this.deps.scope.requireWorkOrder(actor, workOrderId);
     const [wo] = await this.deps.dataSource.query(`SELECT state FROM work_order WHERE id = $1`, [workOrderId]);
     if (!isWorkable(wo.state)) throw conflict(`a work order that is ${wo.state} takes no more photos`);

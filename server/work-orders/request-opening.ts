@@ -85,13 +85,18 @@ export class RequestOpener {
     await after.run(this.deps.logger);
   }
 
-  /** Open appliance incidents still waiting for their request (the sweeper retries them after the hold). */
+  /**
+   * Open appliance incidents of the last day still without a request: the ones waiting out
+   * the dispatch hold (the sweeper retries them). Older ones were weighed at every update.
+   */
   async pendingIncidentIds(): Promise<string[]> {
     const rows: { id: string }[] = await this.deps.dataSource.query(
       `SELECT i.id FROM incident i
         WHERE i.level = 'appliance' AND i.lane = 'repair' AND i.closed_at IS NULL AND i.property_incident_id IS NULL
+          AND i.opened_at > $1::timestamptz - interval '1 day'
           AND NOT EXISTS (SELECT 1 FROM service_request r WHERE (r.appliance_id = i.appliance_id AND r.status = 'open') OR r.incident_id = i.id)
         ORDER BY i.opened_at LIMIT 500`,
+      [this.deps.clock.now()],
     );
     return rows.map((row) => row.id);
   }

@@ -164,6 +164,10 @@ describe('the whole loop: broker → ingest → monitor → request → work ord
       expect(dispatchMails.some((m) => m.links.includes(`${PUBLIC_URL}/work-orders/${job.id}`))).withContext('dispatch e-mail with the job link').toBeTrue();
     }
 
+    // The tenants hear what to do with their food (USDA FSIS guidance, deferring to the local health authority).
+    const warning = (await world.mailTo(world.people.tenantA.email)).find((m) => m.subject.includes('is warming up'));
+    expect(warning?.text).toContain('local health authority');
+
     for (const job of jobs) await repair(technician, job.id, photo);
     // The fan motor of the first appliance really was replaced; the second keeps its fault.
     sensors[0].sim.clearFault('evaporator-fan', visitAtMs + 40 * MINUTE_MS);
