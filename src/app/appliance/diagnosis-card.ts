@@ -40,7 +40,7 @@ export class DiagnosisCard {
   );
 
   /** The cause whose repair content is shown: the one picked, else the most likely. */
-  protected readonly shown = computed(() => this.causes().find((c) => c.code === this.picked()) ?? this.causes()[0] ?? null);
+  protected readonly shown = computed<RankedCause | null>(() => this.causes().find((c) => c.code === this.picked()) ?? this.causes().at(0) ?? null);
 
   protected pick(code: CauseCode): void {
     this.picked.set(code);

@@ -35,13 +35,14 @@ export const STYLE_LABELS: Readonly<Record<ApplianceStyle, string>> = {
   'chest-freezer': 'Chest freezer',
 };
 
+/** One word, for a tile shared by two appliances. */
 export const STYLE_SHORT: Readonly<Record<ApplianceStyle, string>> = {
-  'top-freezer': 'top frz',
-  'bottom-freezer': 'btm frz',
-  'side-by-side': 'side-by-side',
-  'fresh-food-only': 'fridge only',
-  'upright-freezer': 'upright frz',
-  'chest-freezer': 'chest frz',
+  'top-freezer': 'fridge',
+  'bottom-freezer': 'fridge',
+  'side-by-side': 'fridge',
+  'fresh-food-only': 'fridge',
+  'upright-freezer': 'upright',
+  'chest-freezer': 'chest',
 };
 
 export const KIND_LABELS: Readonly<Record<FindingKind, string>> = {

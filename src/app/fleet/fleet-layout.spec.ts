@@ -1,5 +1,6 @@
 import { fleetAppliance, fleetProperty, sampleOverview } from './fleet-fixtures';
 import { layoutFleet, neighbourCell } from './fleet-layout';
+import { headlineTempC } from './unit-tile';
 
 describe('layoutFleet', () => {
   it('puts a band row before each property’s tile rows, a unit per tile and its worst health on the tile', () => {
@@ -41,5 +42,16 @@ describe('neighbourCell (arrow keys)', () => {
     expect(neighbourCell(layout, 4, 'ArrowDown')).toBe(6);
     expect(neighbourCell(layout, 5, 'ArrowUp')).toBe(3);
     expect(neighbourCell(layout, 1, 'ArrowUp')).toBeNull();
+  });
+});
+
+describe('headlineTempC (the tile’s temperature)', () => {
+  it('shows the fresh food, unless a warm appliance has only its freezer past its limit (FDA: 40 °F / 0 °F)', () => {
+    expect(headlineTempC(fleetAppliance('a', 'cold', { freshFoodC: 3.1, freezerC: -18 }))).toBe(3.1);
+    expect(headlineTempC(fleetAppliance('a', 'cold', { freshFoodC: 3.1, freezerC: -16.5 }))).toBe(3.1); // a door or a defrost
+    expect(headlineTempC(fleetAppliance('a', 'warm', { freshFoodC: 1.7, freezerC: -11.5 }))).toBe(-11.5);
+    expect(headlineTempC(fleetAppliance('a', 'warm', { freshFoodC: 7, freezerC: -11.5 }))).toBe(7);
+    expect(headlineTempC(fleetAppliance('a', 'cold', { freshFoodC: null, freezerC: -19 }))).toBe(-19);
+    expect(headlineTempC(fleetAppliance('a', 'silent', { freshFoodC: null, freezerC: null }))).toBeNull();
   });
 });

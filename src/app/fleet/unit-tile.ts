@@ -3,14 +3,24 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { RouterLink } from '@angular/router';
 import type { FleetAppliance } from '../../../shared/api/fleet';
-import { formatTemperature, type TemperatureUnit } from '../../../shared/temperature';
+import { FREEZER_LIMIT_C, FRESH_FOOD_LIMIT_C, formatTemperature, type TemperatureUnit } from '../../../shared/temperature';
 import { HEALTH_ICONS, HEALTH_LABELS, KIND_LABELS, STYLE_LABELS, STYLE_SHORT, healthColor } from './appliance-words';
 import type { TileUnit } from './fleet-layout';
 import { formatZoned } from './zoned-date';
 
-/** The temperature a tile shows: the fresh-food section's when it has one, else the freezer's. */
+/**
+ * The temperature a tile shows: the fresh-food section's, unless the appliance is warm or
+ * not cooling and only its freezer is past the food-safety limit (FDA: 40 °F fresh food,
+ * 0 °F freezer); the freezer's when there is no fresh-food section. A healthy freezer
+ * briefly above 0 °F (a door, a defrost) keeps the fresh-food figure.
+ */
 export function headlineTempC(appliance: FleetAppliance): number | null {
-  return appliance.freshFoodC ?? appliance.freezerC;
+  const { freshFoodC, freezerC } = appliance;
+  const inTrouble = appliance.health === 'warm' || appliance.health === 'no-cooling';
+  const freezerOff = inTrouble && freezerC !== null && freezerC > FREEZER_LIMIT_C;
+  const freshOff = freshFoodC !== null && freshFoodC > FRESH_FOOD_LIMIT_C;
+  if (freezerOff && !freshOff) return freezerC;
+  return freshFoodC ?? freezerC;
 }
 
 /** One unit of a property band: a tile per unit, a link per appliance, coloured by health. */

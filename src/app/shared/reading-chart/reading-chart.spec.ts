@@ -3,7 +3,7 @@ import { TestBed } from '@angular/core/testing';
 import { getInstanceByDom } from 'echarts/core';
 import type { TemperatureUnit } from '../../../../shared/temperature';
 import type { ReadingChartData } from './chart-data';
-import { ReadingChart, ZOOM_SETTLE_MS } from './reading-chart';
+import { ReadingChart, ZOOM_SETTLE_MS, readPalette } from './reading-chart';
 
 @Component({
   imports: [ReadingChart],
@@ -46,5 +46,20 @@ describe('ReadingChart', () => {
     instance.dispatchAction({ type: 'dataZoom', start: 0, end: 100 }); // back to the whole range: nothing to load
     await new Promise((resolve) => setTimeout(resolve, ZOOM_SETTLE_MS + 100));
     expect(fixture.componentInstance.zooms.length).toBe(1);
+  });
+
+  it('hands the canvas plain rgb() colours, resolving light-dark() and var() in the theme', () => {
+    const root = document.documentElement;
+    root.style.setProperty('--cw-health-no-cooling', 'light-dark(#b23a12, #ff8a5c)');
+    root.style.setProperty('--mat-sys-primary', 'var(--spec-primary)');
+    root.style.setProperty('--spec-primary', '#1d4e89');
+    try {
+      const palette = readPalette(document);
+      for (const colour of Object.values(palette)) expect(colour).toMatch(/^rgba?\(/);
+      expect(['rgb(178, 58, 18)', 'rgb(255, 138, 92)']).toContain(palette.incident);
+      expect(palette.freezer).toBe('rgb(29, 78, 137)');
+    } finally {
+      for (const name of ['--cw-health-no-cooling', '--mat-sys-primary', '--spec-primary']) root.style.removeProperty(name);
+    }
   });
 });

@@ -7,17 +7,32 @@ import type { ECharts } from 'echarts/core';
 import type { ChartPalette, ReadingChartData } from './chart-data';
 import { buildChartOptions } from './chart-options';
 
-function readPalette(document: Document): ChartPalette {
-  const style = getComputedStyle(document.documentElement);
-  const value = (name: string, fallback: string) => style.getPropertyValue(name).trim() || fallback;
-  return {
-    freshFood: value('--mat-sys-secondary', '#2d7a82'),
-    freezer: value('--mat-sys-primary', '#1d4e89'),
-    limit: value('--cw-health-warm', '#b8740a'),
-    incident: value('--cw-health-no-cooling', '#b23a12'),
-    text: value('--mat-sys-on-surface-variant', '#444'),
-    grid: value('--mat-sys-outline-variant', '#ccc'),
+/**
+ * The theme's colours as canvas-ready rgb() values. The custom properties hold
+ * `light-dark(…)` and `var(…)` expressions that a canvas cannot parse, so each is resolved
+ * by the browser on a hidden probe element first.
+ */
+export function readPalette(document: Document): ChartPalette {
+  const probe = document.createElement('span');
+  probe.style.display = 'none';
+  document.body.appendChild(probe);
+  const value = (name: string, fallback: string) => {
+    probe.style.color = fallback;
+    probe.style.color = `var(${name}, ${fallback})`;
+    return getComputedStyle(probe).color || fallback;
   };
+  try {
+    return {
+      freshFood: value('--mat-sys-secondary', '#2d7a82'),
+      freezer: value('--mat-sys-primary', '#1d4e89'),
+      limit: value('--cw-health-warm', '#b8740a'),
+      incident: value('--cw-health-no-cooling', '#b23a12'),
+      text: value('--mat-sys-on-surface-variant', '#444'),
+      grid: value('--mat-sys-outline-variant', '#ccc'),
+    };
+  } finally {
+    probe.remove();
+  }
 }
 
 /** Quiet time after the last zoom event before the zoom counts as chosen. */
