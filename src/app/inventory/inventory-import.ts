@@ -1,5 +1,6 @@
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { DecimalPipe } from '@angular/common';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
@@ -9,10 +10,12 @@ import { catchError, filter, firstValueFrom, map, of, switchMap, takeWhile, time
 import { IMPORT_COLUMNS, IMPORT_MAX_BYTES, IMPORT_MAX_ROWS, type ImportAction, type ImportJob, type ImportPreview } from '../../../shared/api/inventory';
 import type { ApplianceStyle } from '../../../shared/domain';
 import { InventoryImportApi } from './inventory-import-api';
-import { STYLE_LABELS } from './labels';
+import { STYLE_LABELS, countOf, inventoryCounts } from './labels';
 import { capitalise, errorMessage } from './messages';
 
 export const IMPORT_POLL_MS = 400;
+/** A file with thousands of problems usually has a few kinds of them: the first hundred show which. */
+export const ERRORS_SHOWN = 100;
 
 const TEMPLATE_ROWS = [
   IMPORT_COLUMNS.join(','),
@@ -28,7 +31,7 @@ const ACTION_WORDS: Record<ImportAction, string> = { create: 'new', existing: 'e
  */
 @Component({
   selector: 'cw-inventory-import',
-  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule, RouterLink],
+  imports: [DecimalPipe, MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule, RouterLink],
   templateUrl: './inventory-import.html',
   styleUrls: ['./list.scss', './inventory-import.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -40,6 +43,8 @@ export class InventoryImport {
   protected readonly columns = IMPORT_COLUMNS;
   protected readonly maxRows = IMPORT_MAX_ROWS;
   protected readonly capitalise = capitalise;
+  protected readonly counts = inventoryCounts;
+  protected readonly countOf = countOf;
   protected readonly maxMegabytes = IMPORT_MAX_BYTES / (1024 * 1024);
   protected readonly styleLabel = (style: ApplianceStyle) => STYLE_LABELS[style];
   protected readonly actionWord = (action: ImportAction) => ACTION_WORDS[action];
@@ -52,6 +57,8 @@ export class InventoryImport {
   protected readonly preview = signal<ImportPreview | null>(null);
   protected readonly error = signal<string | null>(null);
   protected readonly job = signal<ImportJob | null>(null);
+  protected readonly shownErrors = computed(() => this.preview()?.errors.slice(0, ERRORS_SHOWN) ?? []);
+  protected readonly hiddenErrors = computed(() => Math.max(0, (this.preview()?.errors.length ?? 0) - ERRORS_SHOWN));
   protected readonly percent = computed(() => {
     const job = this.job();
     if (!job) return 0;

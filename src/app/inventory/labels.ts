@@ -22,3 +22,13 @@ export function intervalLabel(seconds: number): string {
   if (seconds % 60 === 0) return `every ${seconds / 60} min`;
   return `every ${seconds} s`;
 }
+
+/** "1 property", "3 properties". */
+export function countOf(count: number, singular: string, plural = `${singular}s`): string {
+  return `${count.toLocaleString()} ${count === 1 ? singular : plural}`;
+}
+
+/** "2 properties, 3 units and 5 appliances". */
+export function inventoryCounts(counts: { properties: number; units: number; appliances: number }): string {
+  return `${countOf(counts.properties, 'property', 'properties')}, ${countOf(counts.units, 'unit')} and ${countOf(counts.appliances, 'appliance')}`;
+}

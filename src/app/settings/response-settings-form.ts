@@ -10,7 +10,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { catchError, firstValueFrom, map, of } from 'rxjs';
 import type { OrgSettings, OrgSettingsView, UpdateOrgSettingsRequest } from '../../../shared/api/work-orders';
 import type { Severity } from '../../../shared/domain';
-import { errorMessage } from '../inventory/messages';
+import { capitalise, errorMessage } from '../inventory/messages';
 import { SettingsApi } from './settings-api';
 
 const MINUTES_PER_HOUR = 60;
@@ -69,7 +69,7 @@ export class ResponseSettingsForm {
   }
 
   protected reason(key: keyof OrgSettings): string {
-    return this.view()?.reasons[key] ?? '';
+    return capitalise(this.view()?.reasons[key] ?? '');
   }
 
   protected defaultOf(key: 'urgent' | 'routine' | 'escalate' | 'dispatch' | 'window' | 'hold'): string {
