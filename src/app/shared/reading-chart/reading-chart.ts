@@ -23,8 +23,8 @@ export function readPalette(document: Document): ChartPalette {
   };
   try {
     return {
-      freshFood: value('--mat-sys-secondary', '#2d7a82'),
-      freezer: value('--mat-sys-primary', '#1d4e89'),
+      freshFood: value('--cw-probe-fresh-food', '#2f7d3a'),
+      freezer: value('--cw-probe-freezer', '#1d4e89'),
       limit: value('--cw-health-warm', '#b8740a'),
       incident: value('--cw-health-no-cooling', '#b23a12'),
       text: value('--mat-sys-on-surface-variant', '#444'),
