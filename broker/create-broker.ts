@@ -5,6 +5,7 @@ import type { Logger } from 'pino';
 import { authHooks } from './auth';
 import type { BrokerConfig } from './config';
 import { DeviceAuthenticator } from './device-auth';
+import { IndexedMemoryPersistence } from './memory-persistence';
 import { redisSharedState, type SharedState } from './persistence';
 import { RejectSink } from './reject-sink';
 
@@ -26,7 +27,7 @@ export async function startBroker(config: BrokerConfig, logger: Logger): Promise
   const aedes = await Aedes.createBroker({
     id: config.brokerId,
     mq: shared?.mq,
-    persistence: shared?.persistence,
+    persistence: shared?.persistence ?? new IndexedMemoryPersistence(),
     maxClientsIdLength: MAX_CLIENT_ID_LENGTH,
     drainTimeout: 30_000,
     ...authHooks({

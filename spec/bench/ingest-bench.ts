@@ -207,7 +207,7 @@ async function main(): Promise<void> {
     const brokerPerS = await brokerOnly(url, publisher, baseMs);
 
     const latencies: number[] = [];
-    worker = testWorker(url, db.url, ingestConfig({ clientId: 'cw-bench-ingest' }), (batch) => {
+    worker = testWorker(url, db.url, ingestConfig({ clientId: 'cw-bench-ingest', ...(process.env.BENCH_MAX_UNACKED ? { maxUnacked: Number(process.env.BENCH_MAX_UNACKED) } : {}) }), (batch) => {
       for (const reading of batch.readings) if (reading.seq >= 2_000_000) latencies.push(batch.committedAtMs - reading.atMs);
     });
     await worker.start();
