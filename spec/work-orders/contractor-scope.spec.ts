@@ -50,12 +50,30 @@ describe('contractor scope by work-order assignment', () => {
     }
   });
 
-  it('ends the reach when the job ends', async () => {
-    const manager = await world.signedIn(world.people.manager);
-    const tech = await world.signedIn(world.people.primaryTech);
-    expect((await manager.post(`/api/service-requests/${requestId}/cancel`, { reason: 'Tenant moved out' })).status).toBe(200);
-    expect((await tech.get(history(onJob.applianceId))).status).toBe(404);
-    // The job itself stays readable to the company that had it, as a record.
-    expect((await tech.get(`/api/work-orders/${workOrderId}`)).body.state).toBe('cancelled');
+  // Its own world: jasmine runs specs in random order, and this one cancels the job.
+  describe('when the job ends', () => {
+    let ended: WorkOrderWorld;
+    let device: TestDevice;
+    let endedRequestId: string;
+    let endedWorkOrderId: string;
+
+    beforeAll(async () => {
+      ended = await createWorkOrderWorld();
+      device = await ended.device(0);
+      const manager = await ended.signedIn(ended.people.manager);
+      endedRequestId = (await manager.post('/api/service-requests', { applianceId: device.applianceId, title: 'Fan noise' })).body.id;
+      endedWorkOrderId = (await manager.post(`/api/service-requests/${endedRequestId}/dispatch`, {})).body.workOrder.id;
+    }, 30_000);
+    afterAll(async () => ended.close());
+
+    it('ends the reach', async () => {
+      const manager = await ended.signedIn(ended.people.manager);
+      const tech = await ended.signedIn(ended.people.primaryTech);
+      expect((await tech.get(history(device.applianceId))).status).toBe(200);
+      expect((await manager.post(`/api/service-requests/${endedRequestId}/cancel`, { reason: 'Tenant moved out' })).status).toBe(200);
+      expect((await tech.get(history(device.applianceId))).status).toBe(404);
+      // The job itself stays readable to the company that had it, as a record.
+      expect((await tech.get(`/api/work-orders/${endedWorkOrderId}`)).body.state).toBe('cancelled');
+    });
   });
 });

@@ -51,7 +51,7 @@ describe('ReadingChart', () => {
   it('hands the canvas plain rgb() colours, resolving light-dark() and var() in the theme', () => {
     const root = document.documentElement;
     root.style.setProperty('--cw-health-no-cooling', 'light-dark(#b23a12, #ff8a5c)');
-    root.style.setProperty('--mat-sys-primary', 'var(--spec-primary)');
+    root.style.setProperty('--cw-probe-freezer', 'var(--spec-primary)');
     root.style.setProperty('--spec-primary', '#1d4e89');
     try {
       const palette = readPalette(document);
@@ -59,7 +59,7 @@ describe('ReadingChart', () => {
       expect(['rgb(178, 58, 18)', 'rgb(255, 138, 92)']).toContain(palette.incident);
       expect(palette.freezer).toBe('rgb(29, 78, 137)');
     } finally {
-      for (const name of ['--cw-health-no-cooling', '--mat-sys-primary', '--spec-primary']) root.style.removeProperty(name);
+      for (const name of ['--cw-health-no-cooling', '--cw-probe-freezer', '--spec-primary']) root.style.removeProperty(name);
     }
   });
 });
