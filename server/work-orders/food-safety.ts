@@ -13,7 +13,7 @@ import {
 } from '../../shared/temperature';
 
 const SOURCES = [
-  'USDA Food Safety and Inspection Service: "Danger Zone (40 °F – 140 °F)" and "Keeping Food Safe During an Emergency".',
+  'USDA Food Safety and Inspection Service (FSIS): "Keep Your Food Safe During Emergencies", "Refrigeration and Food Safety" and "Danger Zone (40 °F – 140 °F)".',
   'Your local health authority has the final word on food safety.',
 ];
 
@@ -33,6 +33,8 @@ const DISCARD =
   `for more than ${DANGER_ZONE_DISCARD_MINUTES / 60} hours, or ${HOT_ROOM_DISCARD_MINUTES / 60} hour if the room is above 90 °F (32 °C).`;
 // From memory of the USDA FSIS emergency guidance and the FoodSafety.gov refrigerator chart.
 const KEEPS = 'Hard cheeses, butter, whole fruit and vegetables and most condiments usually keep. Frozen food that still has ice crystals or is at 40 °F or below can be refrozen.';
+// U.S. FDA, "Refrigerator Thermometers: Cold Facts about Food Safety"; USDA FSIS, "Refrigeration and Food Safety".
+const THERMOMETER = 'An appliance thermometer tells for sure: the fridge should be at 40 °F (4 °C) or below, the freezer at 0 °F (−18 °C) or below.';
 const NEVER_TASTE = 'Never taste food to decide whether it is safe. When in doubt, throw it out.';
 
 function headlineFor(health: Health, minutesAbove4c: number): string {
@@ -58,7 +60,7 @@ export function formatDuration(minutes: number): string {
 export function foodSafetyGuidance(health: Health, minutesAbove4c: number): FoodSafetyGuidance {
   const minutes = Math.max(0, Math.round(minutesAbove4c));
   const inTrouble = minutes > 0 || health === 'warm' || health === 'no-cooling';
-  const advice = inTrouble ? [KEEP_CLOSED, DISCARD, KEEPS, NEVER_TASTE] : [];
+  const advice = inTrouble ? [KEEP_CLOSED, DISCARD, KEEPS, THERMOMETER, NEVER_TASTE] : [];
   if (health === 'silent') advice.push('If the fridge feels warm, put a thermometer inside and tell your property manager.');
   return { atRisk: minutes > 0, minutesAbove4c: minutes, headline: headlineFor(health, minutes), advice, sources: SOURCES };
 }
