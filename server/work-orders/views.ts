@@ -5,13 +5,14 @@ import type { IncidentView } from '../../shared/api/monitor';
 import type { RequestProgress, ServiceRequestView } from '../../shared/api/service-requests';
 import {
   OPEN_WORK_ORDER_STATES,
+  type AccessWindow,
   type AttachmentView,
   type WorkOrderEventView,
   type WorkOrderState,
   type WorkOrderSummary,
   type WorkOrderView,
 } from '../../shared/api/work-orders';
-import type { ApplianceStyle } from '../../shared/domain';
+import type { ApplianceStyle, CauseCode } from '../../shared/domain';
 import { INCIDENT_COLUMNS, incidentViewOf } from '../monitor/views';
 
 type Db = DataSource | EntityManager;
@@ -47,14 +48,33 @@ async function incidentsById(db: Db, ids: string[]): Promise<Map<string, Inciden
   return new Map(rows.map((row) => [row.id as string, incidentViewOf(row)]));
 }
 
-/** Requests matching a condition over alias r (with its parameters), newest first; each with its active (else latest) job. */
-export async function requestViews(db: Db, where: string, params: unknown[], page = { limit: 200, offset: 0 }): Promise<ServiceRequestView[]> {
+/** A request with where it is: conditions and sort keys may use aliases r, p (property), u (unit) and a (appliance). */
+export const REQUEST_FROM = `service_request r JOIN property p ON p.id = r.property_id LEFT JOIN unit u ON u.id = r.unit_id LEFT JOIN appliance a ON a.id = r.appliance_id`;
+
+/** SQL: "top-freezer RT18" from the appliance's style and model (alias a), null without an appliance. */
+export const APPLIANCE_LABEL_SQL = `nullif(concat_ws(' ', a.style, nullif(a.model, '')), '')`;
+
+export function placeOf(row: Row): PlaceLabels {
+  return {
+    propertyName: row.property_name as string,
+    timeZone: row.property_time_zone as string,
+    unitLabel: (row.unit_label as string | null) ?? null,
+    applianceLabel: (row.appliance_label as string | null) ?? null,
+  };
+}
+
+/**
+ * Requests matching a condition over REQUEST_FROM's aliases (with its parameters), newest
+ * first unless told otherwise; each with its active (else latest) job.
+ */
+export async function requestViews(db: Db, where: string, params: unknown[], page = { limit: 200, offset: 0 }, orderBy = 'r.opened_at DESC, r.id'): Promise<ServiceRequestView[]> {
   const rows: Row[] = await db.query(
-    `SELECT r.*, wo.id AS wo_id, wo.state AS wo_state, wo.scheduled_start_at, wo.scheduled_end_at, wo.due_at, c.name AS contractor_name
-       FROM service_request r
+    `SELECT r.*, wo.id AS wo_id, wo.state AS wo_state, wo.scheduled_start_at, wo.scheduled_end_at, wo.due_at, c.name AS contractor_name,
+            p.name AS property_name, p.time_zone AS property_time_zone, u.label AS unit_label, ${APPLIANCE_LABEL_SQL} AS appliance_label
+       FROM ${REQUEST_FROM}
        LEFT JOIN LATERAL (SELECT * FROM work_order w WHERE w.service_request_id = r.id ORDER BY w.state NOT IN ('verified','declined','cancelled') DESC, w.created_at DESC LIMIT 1) wo ON true
        LEFT JOIN contractor c ON c.id = wo.contractor_id
-      WHERE ${where} ORDER BY r.opened_at DESC, r.id LIMIT ${page.limit} OFFSET ${page.offset}`,
+      WHERE ${where} ORDER BY ${orderBy} LIMIT ${page.limit} OFFSET ${page.offset}`,
     params,
   );
   if (!rows.length) return [];
@@ -89,6 +109,7 @@ export async function requestViews(db: Db, where: string, params: unknown[], pag
           dueAt: iso(row.due_at) as string,
         }
       : null,
+    place: placeOf(row),
     reports: reports.get(row.id as string) ?? [],
   }));
 }
@@ -118,9 +139,12 @@ async function reportsByRequest(db: Db, requestIds: string[]): Promise<Map<strin
 
 const SUMMARY_SELECT = `
   SELECT wo.*, r.title, r.unit_id, r.appliance_id, r.property_id, r.incident_id, r.symptoms, p.name AS property_name,
-         concat_ws(', ', p.address_line1, p.address_line2, p.city, nullif(p.region, '')) AS address, u.label AS unit_label, c.name AS contractor_name
+         concat_ws(', ', p.address_line1, p.address_line2, p.city, nullif(p.region, '')) AS address, p.time_zone, u.label AS unit_label, c.name AS contractor_name,
+         i.top_cause AS suspected_cause,
+         coalesce((SELECT jsonb_agg(w ORDER BY t.created_at) FROM tenant_report t, jsonb_array_elements(t.access_windows) w WHERE t.service_request_id = r.id), '[]'::jsonb) AS access_windows,
+         coalesce((SELECT bool_or(t.pet_present) FROM tenant_report t WHERE t.service_request_id = r.id), false) AS pet_present
     FROM work_order wo JOIN service_request r ON r.id = wo.service_request_id JOIN property p ON p.id = r.property_id
-    LEFT JOIN unit u ON u.id = r.unit_id JOIN contractor c ON c.id = wo.contractor_id`;
+    LEFT JOIN unit u ON u.id = r.unit_id JOIN contractor c ON c.id = wo.contractor_id LEFT JOIN incident i ON i.id = r.incident_id`;
 
 export function isOverdue(row: { state: WorkOrderState; due_at: Date }, nowMs: number): boolean {
   return OPEN_WORK_ORDER_STATES.includes(row.state) && row.due_at.getTime() < nowMs;
@@ -134,7 +158,7 @@ function summaryOf(row: Row, nowMs: number): WorkOrderSummary {
     priority: row.priority as WorkOrderSummary['priority'],
     title: row.title as string,
     contractor: { id: row.contractor_id as string, name: row.contractor_name as string },
-    property: { id: row.property_id as string, name: row.property_name as string, address: row.address as string },
+    property: { id: row.property_id as string, name: row.property_name as string, address: row.address as string, timeZone: row.time_zone as string },
     unit: row.unit_id ? { id: row.unit_id as string, label: row.unit_label as string } : null,
     applianceId: (row.appliance_id as string | null) ?? null,
     dispatchedAt: iso(row.dispatched_at) as string,
@@ -142,11 +166,18 @@ function summaryOf(row: Row, nowMs: number): WorkOrderSummary {
     overdue: isOverdue(row as { state: WorkOrderState; due_at: Date }, nowMs),
     scheduledStartAt: iso(row.scheduled_start_at),
     scheduledEndAt: iso(row.scheduled_end_at),
+    suspectedCause: (row.suspected_cause as CauseCode | null) ?? null,
+    accessWindows: row.access_windows as AccessWindow[],
+    petPresent: row.pet_present === true,
   };
 }
 
-export async function workOrderSummaries(db: Db, where: string, params: unknown[], nowMs: number, page: { limit: number; offset: number }): Promise<WorkOrderSummary[]> {
-  const rows: Row[] = await db.query(`${SUMMARY_SELECT} WHERE ${where} ORDER BY wo.due_at, wo.id LIMIT ${page.limit} OFFSET ${page.offset}`, params);
+/** Conditions and sort keys over work-order summaries may use aliases wo, r, p, u and c (contractor). */
+export const WORK_ORDER_FROM = `work_order wo JOIN service_request r ON r.id = wo.service_request_id JOIN property p ON p.id = r.property_id
+    LEFT JOIN unit u ON u.id = r.unit_id JOIN contractor c ON c.id = wo.contractor_id`;
+
+export async function workOrderSummaries(db: Db, where: string, params: unknown[], nowMs: number, page: { limit: number; offset: number }, orderBy = 'wo.due_at, wo.id'): Promise<WorkOrderSummary[]> {
+  const rows: Row[] = await db.query(`${SUMMARY_SELECT} WHERE ${where} ORDER BY ${orderBy} LIMIT ${page.limit} OFFSET ${page.offset}`, params);
   return rows.map((row) => summaryOf(row, nowMs));
 }
 
@@ -155,8 +186,7 @@ export async function workOrderView(db: Db, workOrderId: string, nowMs: number):
   if (!row) return null;
   const [appliance]: Row[] = row.appliance_id ? await db.query(`SELECT id, style, model, serial FROM appliance WHERE id = $1`, [row.appliance_id]) : [];
   const incident = row.incident_id ? ((await incidentsById(db, [row.incident_id as string])).get(row.incident_id as string) ?? null) : null;
-  const [reports, visits, parts, labour, attachments, events] = await Promise.all([
-    db.query(`SELECT access_windows, pet_present FROM tenant_report WHERE service_request_id = $1`, [row.service_request_id]) as Promise<Row[]>,
+  const [visits, parts, labour, attachments, events] = await Promise.all([
     db.query(`SELECT id, arrived_at, left_at, notes FROM work_order_visit WHERE work_order_id = $1 ORDER BY arrived_at`, [workOrderId]) as Promise<Row[]>,
     db.query(`SELECT id, name, quantity, unit_cost_cents, currency FROM work_order_part WHERE work_order_id = $1 ORDER BY created_at`, [workOrderId]) as Promise<Row[]>,
     db.query(`SELECT id, minutes, hourly_rate_cents, currency FROM work_order_labour WHERE work_order_id = $1 ORDER BY created_at`, [workOrderId]) as Promise<Row[]>,
@@ -191,8 +221,6 @@ export async function workOrderView(db: Db, workOrderId: string, nowMs: number):
       historyToMs: incident ? (incident.closedAt ? Date.parse(incident.closedAt) + 6 * 3_600_000 : nowMs) : null,
     },
     cautions: SAFETY_CAUTIONS,
-    accessWindows: reports.flatMap((r) => r.access_windows as { from: string; to: string }[]),
-    petPresent: reports.some((r) => r.pet_present === true),
     symptoms: row.symptoms as string[],
     visits: visits.map((v) => ({ id: v.id as string, arrivedAt: iso(v.arrived_at) as string, leftAt: iso(v.left_at), notes: v.notes as string })),
     parts: parts.map((p) => ({ id: p.id as string, name: p.name as string, quantity: Number(p.quantity), unitCostCents: Number(p.unit_cost_cents), currency: p.currency as string })),
