@@ -18,10 +18,10 @@ import { judgeValue, recordVerdict } from './probe-check';
 import { cyclePeriodMinutes, doorOpeningsPerDay, trackCycle, trackDoor, trackExcursion, transientLimitMinutes } from './rhythm';
 import { DEFAULT_SETTINGS, type DetectionSettings } from './settings';
 import { currentCauses, forgetEvidence } from './signature';
-import { newEngineState, STATE_VERSION, type EngineState, type ProbeState } from './state';
+import { levelsOfState, newEngineState, STATE_VERSION, type EngineState, type ProbeState } from './state';
 import { SENSOR_CAUSES } from './diagnosis';
 import { sensorSummary } from './summaries';
-import type { EngineEvent, EngineReading, Finding, LearnedNormal } from './types';
+import type { EngineEvent, EngineReading, Finding, LearnedNormal, ProbeLevelNow } from './types';
 import { isRepairFinding } from './types';
 import { judgeNoCooling, judgeWarming, noCoolingPatch, warmingPatch } from './warming';
 
@@ -266,6 +266,11 @@ export class DetectionEngine {
 
   doorOpeningsPerDay(): number | null {
     return doorOpeningsPerDay(this.state);
+  }
+
+  /** Each present probe's current level and baseline (what live status and verification read). */
+  probeLevels(): Partial<Record<Probe, ProbeLevelNow>> {
+    return levelsOfState(this.state);
   }
 
   baselineC(probe: Probe): number | null {

@@ -4,7 +4,7 @@
  * arrays (a few dozen numbers); nothing here grows with the length of the history.
  */
 import type { ApplianceStyle, CauseCode, Probe } from '../../shared/domain';
-import type { Finding } from './types';
+import type { Finding, ProbeLevelNow } from './types';
 import { newCusum, type CusumState } from './stats/cusum';
 
 export const STATE_VERSION = 1;
@@ -250,4 +250,17 @@ export function newEngineState(style: ApplianceStyle, probes: readonly Probe[]):
 export function pushRing(ring: number[], value: number, capacity: number): void {
   ring.push(value);
   while (ring.length > capacity) ring.shift();
+}
+
+/**
+ * Each probe's level and baseline read from a state (the engine's accessor uses it; a stored
+ * snapshot can be read the same way without building an engine).
+ */
+export function levelsOfState(state: EngineState): Partial<Record<Probe, ProbeLevelNow>> {
+  const levels: Partial<Record<Probe, ProbeLevelNow>> = {};
+  for (const p of state.probes) {
+    const times = p.level.levelTimesMs;
+    levels[p.probe] = { levelC: p.level.levelC, levelAtMs: times.length ? times[times.length - 1] : null, baselineC: p.level.baselineC };
+  }
+  return levels;
 }

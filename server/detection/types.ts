@@ -53,6 +53,15 @@ export function isRepairFinding(finding: Pick<Finding, 'kind'>): boolean {
   return REPAIR_KINDS.includes(finding.kind);
 }
 
+/** One probe's smoothed level as the engine sees it now, with its learned normal. */
+export interface ProbeLevelNow {
+  /** Median of the recent quarter-hour means (°C), null before there are enough. */
+  levelC: number | null;
+  /** End of the quarter-hour bucket the level was last computed at. */
+  levelAtMs: number | null;
+  baselineC: number | null;
+}
+
 /** What the engine has learned about one appliance's own normal rhythm. */
 export interface LearnedNormal {
   /** True once the learning period is over and deviations are judged against the baseline. */

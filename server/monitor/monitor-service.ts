@@ -8,13 +8,11 @@ import type { Logger } from 'pino';
 import type { DataSource, EntityManager } from 'typeorm';
 import type { EventPlace } from '../../shared/api/monitor';
 import type { Clock } from '../auth/clock';
-import type { EngineState } from '../detection/state';
 import type { BusEvent, EventBus } from '../events/bus';
 import type { ApplianceStatusEvent } from '../events/internal';
 import type { CommittedBatch, CommittedBatchHook } from '../ingest/pipeline';
 import type { StoredReading } from '../ingest/store';
 import { BatchChanges, incidentEventTypes } from './batch-changes';
-import { probeLevels } from './engine-levels';
 import { groupByAppliance } from './readings';
 import { loadAppliances, readingsBetween, linkFindings, saveStates, upsertFindings, upsertIncidents, type CatchUpReading } from './monitor-store';
 import { MonitoredAppliance } from './monitored-appliance';
@@ -144,7 +142,7 @@ export class MonitorService {
     );
     const events: BusEvent[] = [...this.healthEvents(changes), ...(await this.incidentEvents(db, changes, ids))];
     for (const propertyId of changes.propertiesToCorrelate) events.push(...propertyEvents(await this.powerLoss.check(db, propertyId)));
-    events.push(...statusEvents(snapshots));
+    events.push(...statusEvents(changes.touched));
     return events;
   }
 
@@ -187,8 +185,8 @@ function propertyEvents(changes: PropertyIncidentChange[]): BusEvent[] {
   }));
 }
 
-function statusEvents(snapshots: { appliance: MonitoredAppliance; engineState: EngineState }[]): BusEvent[] {
-  return snapshots.flatMap(({ appliance, engineState }) => {
+function statusEvents(touched: readonly MonitoredAppliance[]): BusEvent[] {
+  return touched.flatMap((appliance) => {
     if (!appliance.lastReading) return [];
     const event: ApplianceStatusEvent = {
       type: 'appliance.status',
@@ -196,7 +194,7 @@ function statusEvents(snapshots: { appliance: MonitoredAppliance; engineState: E
       applianceId: appliance.ref.applianceId,
       unitId: appliance.ref.unitId,
       lastReadingAtMs: appliance.lastReading.atMs,
-      probes: probeLevels(engineState),
+      probes: appliance.engine.probeLevels(),
       openRepairFindings: appliance.openRepairFindings(),
       trail: appliance.trail.take(),
     };

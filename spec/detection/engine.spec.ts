@@ -24,6 +24,19 @@ describe('the engine learns each appliance\'s own normal', () => {
     expect(learned.baselineC.freezer!).toBeCloseTo(-19, 0);
   });
 
+  it('tells its current level and baseline per probe without the caller reading its state', () => {
+    const levels = result.engine.probeLevels();
+    const state = result.engine.snapshot();
+    for (const p of state.probes) {
+      expect(levels[p.probe]!.baselineC).toBe(p.level.baselineC);
+      expect(levels[p.probe]!.levelC).toBe(p.level.levelC);
+      expect(levels[p.probe]!.levelAtMs).toBe(p.level.levelTimesMs[p.level.levelTimesMs.length - 1]);
+    }
+    // The level lags the newest reading by less than a quarter hour bucket.
+    expect(readings[readings.length - 1].atMs - levels.freezer!.levelAtMs!).toBeLessThan(15 * MINUTE_MS);
+    expect(levels.fresh_food!.levelC!).toBeCloseTo(3, 0);
+  });
+
   it('learns the compressor cycle period', () => {
     expect(learned.cyclePeriodMinutes!).toBeGreaterThan(35);
     expect(learned.cyclePeriodMinutes!).toBeLessThan(45);
