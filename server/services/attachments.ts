@@ -96,8 +96,9 @@ export class AttachmentsService {
 
   /** A photo or invoice on a work order, by the contractor doing it or a manager. */
   async addToWorkOrder(actor: Actor, workOrderId: string, file: UploadedFile | undefined, kind: AttachmentKind): Promise<AttachmentView> {
-    if (!file) throw badRequest('no file in the field "file"');
+    // Scope first: someone outside the job learns nothing, not even that a file is missing.
     const place = await this.deps.scope.requireWorkOrder(actor, workOrderId);
+    if (!file) throw badRequest('no file in the field "file"');
     const [wo] = await this.deps.dataSource.query(`SELECT state FROM work_order WHERE id = $1`, [workOrderId]);
     if (!isWorkable(wo.state)) throw conflict(`a work order that is ${wo.state} takes no more photos`);
     const staged = await this.stage([file], place.organizationId);

@@ -1,10 +1,11 @@
 import type { AccessRule } from '../../server/auth/access';
 import { routeTableOf, type RouteRecord, type ScopeKind } from '../../server/auth/route-table';
-import { Scope } from '../../server/auth/scope';
+import { WorkOrderScope } from '../../server/work-orders/work-order-scope';
 import type { Browser } from './support/browser';
 import { mountedRoutes } from './support/express-routes';
 import { createWorld, type Fixtures, type Person, type SeededUser, type World, SPEC_TIMEOUT_MS } from './support/world';
 import { inventoryMatrixCases, seedInventoryMatrix } from '../inventory/support/access-cases';
+import { seedWorkOrderMatrix, workOrderMatrixCases } from './support/work-order-cases';
 
 /**
  * The access matrix, generated from the route table: for every declared route and every
@@ -20,11 +21,16 @@ const CALLERS: readonly Caller[] = ['anonymous', 'tenantA', 'tenantB', 'contract
 interface Target {
   organizationId: string;
   unitId?: string;
+  /** A record of the job dispatched to contractorWithJob's company (scope by assignment). */
+  assigned?: boolean;
+  /** An assigned record the unit's tenant sees too (their request); a job's photos they do not. */
+  tenantSees?: boolean;
 }
 
 interface MatrixCase {
   params?: Record<string, string>;
-  body?: unknown;
+  /** A function gives each caller its own body (a create that refuses a second of the same name). */
+  body?: unknown | ((caller: Caller) => unknown);
   target?: Target;
   /** The answer for a caller the rule and scope let through. */
   ok: number;
@@ -76,8 +82,10 @@ function casesFor(f: Fixtures, messageId: string): Record<string, MatrixCase> {
     'GET /dev/inbox/:messageId': message,
     'GET /dev/inbox/:messageId/html': message,
     'GET /api/fleet': { ok: 200 },
+    'GET /api/reports': { ok: 200 },
+    'GET /api/reports/:table.csv': { params: { table: 'spend-by-property' }, ok: 200 },
     'GET /api/appliances/:id': { params: { id: f.org1.applianceA }, target: { organizationId: f.org1.id, unitId: f.org1.unitA }, ok: 200 },
-    'GET /api/appliances/:id/history': { params: { id: f.org1.applianceA }, target: { organizationId: f.org1.id, unitId: f.org1.unitA }, ok: 200 },
+    'GET /api/appliances/:id/history': { params: { id: f.org1.applianceA }, target: { organizationId: f.org1.id, unitId: f.org1.unitA, assigned: true }, ok: 200 },
     // Without Accept: text/event-stream the live feed answers 406 instead of streaming.
     'GET /api/events': { ok: 406 },
   };
@@ -103,10 +111,15 @@ function inScope(scope: ScopeKind, user: SeededUser | null, target: Target | und
   if (!target || scope === 'none' || scope === 'self') return true;
   if (!user) return false;
   const managesTarget = user.role === 'manager' && user.organizationId === target.organizationId;
+  // Only contractorWithJob's company has jobs; the other contractor reaches nothing.
+  const onTheJob = !!target.assigned && user.email === 'contractorwithjob@example.com';
+  const tenantOfUnit = user.role === 'tenant' && !!target.unitId && user.unitId === target.unitId;
   if (scope === 'organization') return managesTarget;
-  if (scope === 'unit') return managesTarget || (user.role === 'tenant' && user.unitId === target.unitId);
-  // 'assignment': work orders arrive in a later issue; until then only managers reach assigned records.
-  return managesTarget;
+  // A unit's records: its manager, its tenant, and the contractor while a job there runs.
+  if (scope === 'unit') return managesTarget || tenantOfUnit || onTheJob;
+  // Assigned records (a job, its photos): the manager and the contractor on the job; the unit's
+  // tenant only where the record is theirs to see (their request).
+  return managesTarget || onTheJob || (tenantOfUnit && !!target.tenantSees);
 }
 
 export function expectedStatus(record: RouteRecord, user: SeededUser | null, matrixCase: MatrixCase): number {
@@ -126,12 +139,16 @@ describe('access matrix (generated from the route table)', () => {
   let cases: Record<string, MatrixCase>;
 
   beforeAll(async () => {
-    world = await createWorld();
+    world = await createWorld({ workOrders: true });
     records = routeTableOf(world.app).records;
     // A message in the fake inbox, for the dev-inbox routes.
     await (await world.signedIn('adminOrg1')).post('/api/invitations', { email: 'matrix.mail@example.com', displayName: 'Matrix Mail', role: 'contractor' });
     const [messageId] = world.smtp.inbox.ids(1);
-    cases = { ...casesFor(world.fixtures, messageId), ...inventoryMatrixCases(await seedInventoryMatrix(world)) };
+    cases = {
+      ...casesFor(world.fixtures, messageId),
+      ...inventoryMatrixCases(await seedInventoryMatrix(world)),
+      ...workOrderMatrixCases(await seedWorkOrderMatrix(world)),
+    };
   }, SPEC_TIMEOUT_MS);
   afterAll(async () => world.close(), SPEC_TIMEOUT_MS);
 
@@ -163,7 +180,8 @@ describe('access matrix (generated from the route table)', () => {
         // A fresh session after anything that may end one (sign-out).
         if (!browser) browser = user ? await world.signedIn(caller as Person) : world.browser();
         if (!user) await browser.get('/api/auth/session');
-        const body = record.method === 'get' ? undefined : (matrixCase.body ?? {});
+        const caseBody = typeof matrixCase.body === 'function' ? matrixCase.body(caller) : matrixCase.body;
+        const body = record.method === 'get' ? undefined : (caseBody ?? {});
         const res = await browser.send(record.method, fillPath(record.path, matrixCase.params), body, { stream: matrixCase.stream });
         const expected = expectedStatus(record, user, matrixCase);
         if (res.status !== expected) mismatches.push(`${keyOf(record)}: expected ${expected}, got ${res.status} ${JSON.stringify(res.body).slice(0, 160)}`);
@@ -173,19 +191,18 @@ describe('access matrix (generated from the route table)', () => {
     }, MATRIX_ROW_TIMEOUT_MS);
   }
 
-  it('lets contractors reach no unit, appliance, user or invitation while no work order is dispatched to them', async () => {
-    const rules = new Scope(world.db.dataSource);
-    for (const caller of ['contractorWithJob', 'contractorWithoutJob'] as const) {
-      const actor = (await world.signedIn(caller).then((b) => b.get('/api/auth/session'))).body.user;
-      const { org1, org2 } = world.fixtures;
-      for (const unitId of [org1.unitA, org1.unitB, org2.unitC]) expect(await rules.canReadUnit(actor, unitId)).withContext(`${caller} unit`).toBeFalse();
-      for (const applianceId of [org1.applianceA, org2.applianceC]) expect(await rules.canReadAppliance(actor, applianceId)).withContext(`${caller} appliance`).toBeFalse();
-    }
+  it('lets a contractor reach the unit and appliance of a job dispatched to them, and nothing else', async () => {
+    const rules = new WorkOrderScope(world.db.dataSource);
+    const { org1, org2 } = world.fixtures;
+    const actorOf = async (caller: 'contractorWithJob' | 'contractorWithoutJob') => (await world.signedIn(caller).then((b) => b.get('/api/auth/session'))).body.user;
+    const withJob = await actorOf('contractorWithJob');
+    expect(await rules.canReadUnit(withJob, org1.unitA)).toBeTrue();
+    expect(await rules.canReadAppliance(withJob, org1.applianceA)).toBeTrue();
+    for (const unitId of [org1.unitB, org2.unitC]) expect(await rules.canReadUnit(withJob, unitId)).withContext('contractorWithJob, unit off the job').toBeFalse();
+    expect(await rules.canReadAppliance(withJob, org2.applianceC)).toBeFalse();
+    const withoutJob = await actorOf('contractorWithoutJob');
+    for (const unitId of [org1.unitA, org1.unitB, org2.unitC]) expect(await rules.canReadUnit(withoutJob, unitId)).withContext('contractorWithoutJob unit').toBeFalse();
+    for (const applianceId of [org1.applianceA, org2.applianceC]) expect(await rules.canReadAppliance(withoutJob, applianceId)).withContext('contractorWithoutJob appliance').toBeFalse();
   }, SPEC_TIMEOUT_MS);
 
-  xit('lets a contractor read the appliance of a job dispatched to them, and only for the job’s duration', () => {
-    // Work orders arrive in a later issue: it extends Scope.contractorReaches and gives
-    // contractorWithJob a dispatched work order on unit A, then this case checks the
-    // 'assignment' routes answer 200 for them and 404 for contractorWithoutJob.
-  });
 });

@@ -3,7 +3,7 @@ import os from 'node:os';
 import path from 'node:path';
 import bcrypt from 'bcryptjs';
 import type { Express } from 'express';
-import pino from 'pino';
+import pino, { type Logger } from 'pino';
 import { createApp } from '../../../server/app';
 import type { AccountsOptions } from '../../../server/auth/accounts';
 import type { RateLimitSettings } from '../../../server/auth/rate-limits';
@@ -12,7 +12,10 @@ import { loadConfig } from '../../../server/config';
 import { startFakeSmtp, type FakeSmtp } from '../../../server/mail/fake-smtp';
 import type { InboxMessage } from '../../../server/mail/inbox';
 import { createSmtpMailer, type Mailer } from '../../../server/mail/mailer';
+import { EventBus } from '../../../server/events/bus';
 import { probe } from '../../../server/services/health';
+import { startLocalS3, type ObjectStorage } from '../../../server/storage/setup';
+import { createWorkOrders, type WorkOrders } from '../../../server/work-orders/create';
 import type { Role } from '../../../shared/domain';
 import { createTestDatabase, type TestDatabase } from '../../support/test-db';
 import { Browser } from './browser';
@@ -138,6 +141,25 @@ export interface WorldOptions {
   accounts?: Partial<AccountsOptions>;
   /** Replace the SMTP mailer, e.g. with one that fails. */
   mailer?: Mailer;
+  /** Mount the work-order loop (requests, jobs, contractors, tenant side), as main.ts does. */
+  workOrders?: boolean;
+}
+
+interface WorkOrderParts {
+  workOrders: WorkOrders;
+  storage: ObjectStorage;
+  folder: string;
+  bus: EventBus;
+}
+
+/** The loop with its local S3 fake; its timers stay off, so nothing moves unless a spec asks. */
+async function startWorkOrders(dataSource: TestDatabase['dataSource'], logger: Logger, clock: ManualClock, mailer: Mailer, publicUrl: string): Promise<WorkOrderParts> {
+  const folder = fs.mkdtempSync(path.join(os.tmpdir(), 'cw-auth-s3-'));
+  const storage = await startLocalS3(folder);
+  const bus = new EventBus(logger);
+  const workOrders = createWorkOrders({ dataSource, publicUrl, logger, bus, clock, mailer, store: storage.store });
+  await workOrders.start(0);
+  return { workOrders, storage, folder, bus };
 }
 
 /** A throwaway database with two organizations and every role, the fake SMTP server and the app. */
@@ -154,6 +176,7 @@ export async function createWorld(options: WorldOptions = {}): Promise<World> {
   const logs: string[] = [];
   const logger = pino({ level: 'trace' }, { write: (line: string) => logs.push(line) });
   const config = { ...loadConfig({ NODE_ENV: 'test' }), clientDir: '/nonexistent', publicUrl: options.publicUrl ?? 'http://127.0.0.1:4280' };
+  const loop = options.workOrders ? await startWorkOrders(db.dataSource, logger, clock, mailer, config.publicUrl) : null;
   const app = createApp({
     config,
     dataSource: db.dataSource,
@@ -169,6 +192,7 @@ export async function createWorld(options: WorldOptions = {}): Promise<World> {
       rateLimits: { ...GENEROUS_LIMITS, ...options.rateLimits },
       ...options.accounts,
     },
+    ...(loop ? { bus: loop.bus, workOrders: loop.workOrders } : {}),
   });
   const browser = () => new Browser(app);
   return {
@@ -187,6 +211,11 @@ export async function createWorld(options: WorldOptions = {}): Promise<World> {
       return session;
     },
     async close() {
+      if (loop) {
+        await loop.workOrders.stop();
+        await loop.storage.close();
+        fs.rmSync(loop.folder, { recursive: true, force: true });
+      }
       mailer.close();
       await smtp.close();
       await db.drop();
