@@ -108,6 +108,8 @@ export function inventoryMatrixCases(seed: InventoryMatrixSeed): Record<string, 
     'POST /api/inventory/sensors/:sensorId/secret': { ...sensor, ok: 200 },
     'POST /api/inventory/sensors/:sensorId/archive': { ...sensor, ok: 200 },
     'POST /api/inventory/sensors/:sensorId/restore': { ...sensor, ok: 200 },
+    // The sensor's page shows its rejected messages (the telemetry routes call the id :id).
+    'GET /api/sensors/:id/rejects': { params: { id: seed.sensorId }, target, ok: 200 },
     // The matrix sends JSON, not a file: a caller who gets through is told to choose one.
     'POST /api/inventory/import/preview': { ok: 400 },
     'POST /api/inventory/import': { ok: 400 },
