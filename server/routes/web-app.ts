@@ -12,18 +12,22 @@ import type { RouteGroup } from '../auth/route-table';
 import type { Scope } from '../auth/scope';
 import { appliancesController } from '../controllers/appliances';
 import { eventsController } from '../controllers/events';
+import { reportsController } from '../controllers/reports';
 import { fleetController } from '../controllers/fleet';
 import type { EventBus } from '../events/bus';
 import { AppliancesService, type RepairRuleSource, type ServiceHistorySource } from '../services/appliances';
+import { AuditService } from '../services/audit';
 import { FleetService } from '../services/fleet';
 import { LiveEventsService } from '../services/live-events';
+import { ReportsService } from '../services/reports';
 import { OrgSettingsRepairRule, WorkOrderServiceHistory } from '../services/service-history';
 import { HistoryService } from '../telemetry/history-service';
 import { RejectsService } from '../telemetry/rejects-service';
 import { appliancesRoutes, historyRoutes } from './appliances';
 import { eventsRoutes } from './events';
 import { fleetRoutes } from './fleet';
-import { telemetryRouter } from './history';
+import { reportsRoutes } from './reports';
+import { sensorRejectsRoutes, telemetryRouter } from './history';
 
 export interface WebAppRouteDeps {
   dataSource: DataSource;
@@ -65,7 +69,9 @@ export function webAppRoutes(deps: WebAppRouteDeps): WebAppRoutes {
     fleetRoutes(fleetController(new FleetService(dataSource, clock))),
     appliancesRoutes(appliancesController(appliances)),
     historyRoutes(history),
+    sensorRejectsRoutes(history),
     eventsRoutes(eventsController({ live, actorById: deps.actorById, heartbeatMs: deps.heartbeatMs ?? HEARTBEAT_MS, retryMs: RETRY_MS })),
+    reportsRoutes(reportsController(new ReportsService(dataSource, clock), new AuditService(dataSource, clock))),
   ];
   return { groups, live };
 }
