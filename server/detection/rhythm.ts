@@ -173,43 +173,81 @@ export interface DefrostRhythm {
  * interval is the period T whose comb of slots best fits the recorded rises (hits minus slots
  * left empty), tried over every spacing between two rises.
  */
-function combFit(defrosts: readonly DefrostEvent[], periodMs: number): DefrostEvent[] {
+function isOnComb(atMs: number, anchorMs: number, periodMs: number, toleranceMs: number): boolean {
+  const slots = (atMs - anchorMs) / periodMs;
+  return Math.abs(slots - Math.round(slots)) * periodMs <= toleranceMs;
+}
+
+interface CombFit {
+  anchor: number;
+  hits: number;
+  firstMs: number;
+  lastMs: number;
+}
+
+const fit: CombFit = { anchor: -1, hits: 0, firstMs: 0, lastMs: 0 };
+
+/**
+ * Best anchor for the period (the first of the most hits), counted over plain times without
+ * building arrays: this runs for every pair of rises each time a rise is recorded.
+ */
+function combFit(timesMs: Float64Array, periodMs: number): CombFit {
   const toleranceMs = Math.max(0.5 * HOUR_MS, 0.04 * periodMs);
-  let best: DefrostEvent[] = [];
-  for (const anchor of defrosts) {
-    const hits = defrosts.filter((d) => {
-      const slots = (d.atMs - anchor.atMs) / periodMs;
-      return Math.abs(slots - Math.round(slots)) * periodMs <= toleranceMs;
-    });
-    if (hits.length > best.length) best = hits;
+  fit.anchor = -1;
+  fit.hits = 0;
+  for (let a = 0; a < timesMs.length; a++) {
+    let hits = 0;
+    let firstMs = 0;
+    let lastMs = 0;
+    for (let i = 0; i < timesMs.length; i++) {
+      if (!isOnComb(timesMs[i], timesMs[a], periodMs, toleranceMs)) continue;
+      if (hits === 0) firstMs = timesMs[i];
+      lastMs = timesMs[i];
+      hits++;
+    }
+    if (hits > fit.hits) {
+      fit.anchor = a;
+      fit.hits = hits;
+      fit.firstMs = firstMs;
+      fit.lastMs = lastMs;
+    }
   }
-  return best;
+  return fit;
+}
+
+function combHits(defrosts: readonly DefrostEvent[], anchor: number, periodMs: number): DefrostEvent[] {
+  const toleranceMs = Math.max(0.5 * HOUR_MS, 0.04 * periodMs);
+  return defrosts.filter((d) => isOnComb(d.atMs, defrosts[anchor].atMs, periodMs, toleranceMs));
 }
 
 const MIN_COMB_HITS = 3;
+const MAX_PAIR_SPAN = 4;
 const MAX_DEFROST_INTERVAL_MS = 96 * HOUR_MS;
 
 export function defrostRhythm(defrosts: readonly DefrostEvent[]): DefrostRhythm {
   const lastAtMs = defrosts.length ? defrosts[defrosts.length - 1].atMs : null;
   let bestScore = 0;
-  let bestHits: DefrostEvent[] = [];
+  let bestAnchor = -1;
   let bestPeriodMs = 0;
-  for (let i = 0; i < defrosts.length; i++) {
-    for (let j = i + 1; j < defrosts.length; j++) {
-      const periodMs = defrosts[j].atMs - defrosts[i].atMs;
+  const timesMs = Float64Array.from(defrosts, (d) => d.atMs);
+  for (let i = 0; i < timesMs.length; i++) {
+    // The period is the spacing of two rises with at most a few others (doors, a missed
+    // defrost) between them; wider pairs only repeat multiples already tried.
+    for (let j = i + 1; j < timesMs.length && j <= i + MAX_PAIR_SPAN; j++) {
+      const periodMs = timesMs[j] - timesMs[i];
       if (periodMs < 4 * HOUR_MS || periodMs > MAX_DEFROST_INTERVAL_MS) continue;
-      const hits = combFit(defrosts, periodMs);
-      const span = hits[hits.length - 1].atMs - hits[0].atMs;
-      const empty = Math.round(span / periodMs) + 1 - hits.length;
-      const score = hits.length - empty;
-      if (hits.length >= MIN_COMB_HITS && (score > bestScore || (score === bestScore && periodMs < bestPeriodMs))) {
+      const fit = combFit(timesMs, periodMs);
+      const empty = Math.round((fit.lastMs - fit.firstMs) / periodMs) + 1 - fit.hits;
+      const score = fit.hits - empty;
+      if (fit.hits >= MIN_COMB_HITS && (score > bestScore || (score === bestScore && periodMs < bestPeriodMs))) {
         bestScore = score;
-        bestHits = hits;
+        bestAnchor = fit.anchor;
         bestPeriodMs = periodMs;
       }
     }
   }
-  if (bestHits.length < MIN_COMB_HITS) return { intervalHours: null, riseC: null, durationMinutes: null, lastAtMs };
+  if (bestAnchor < 0) return { intervalHours: null, riseC: null, durationMinutes: null, lastAtMs };
+  const bestHits = combHits(defrosts, bestAnchor, bestPeriodMs);
   const steps: number[] = [];
   for (let i = 1; i < bestHits.length; i++) {
     const gap = bestHits[i].atMs - bestHits[i - 1].atMs;
