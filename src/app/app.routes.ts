@@ -60,6 +60,12 @@ export const routes: Routes = [
     heading: 'No service requests',
     message: 'Requests open here when an incident needs a technician or a tenant reports a problem.',
   }),
+  {
+    path: 'work-orders/:workOrderId',
+    title: 'Work order · Chillwarden',
+    canMatch: [roleGuard('manager', 'contractor')],
+    loadComponent: () => import('./work-order/work-order-page').then((m) => m.WorkOrderPage),
+  },
   emptyStateRoute('work-orders', ['manager'], {
     title: 'Work orders',
     lead: 'Jobs dispatched to contractors, from dispatch to a repair verified by telemetry.',
@@ -92,20 +98,18 @@ export const routes: Routes = [
     canMatch: [roleGuard('manager')],
     loadComponent: () => import('./settings/settings-page').then((m) => m.SettingsPage),
   },
-  emptyStateRoute('jobs', ['contractor'], {
-    title: 'My jobs',
-    lead: 'Work orders dispatched to you, soonest due first.',
-    icon: 'handyman',
-    heading: 'Your job list is not on this page yet',
-    message: 'Each work order dispatched to you arrives by e-mail with the diagnosis, the parts to bring and the access window. This page will list them, soonest due first.',
-  }),
-  emptyStateRoute('home', ['tenant'], {
-    title: 'My refrigerator',
-    lead: 'The status of the refrigerator in your unit.',
-    icon: 'kitchen',
-    heading: 'Your refrigerator’s status is not on this page yet',
-    message: 'Your property manager is told at once when your refrigerator warms. Until this page shows its status, report any problem to your property manager.',
-  }),
+  {
+    path: 'jobs',
+    title: 'My jobs · Chillwarden',
+    canMatch: [roleGuard('contractor')],
+    loadComponent: () => import('./jobs/jobs-page').then((m) => m.JobsPage),
+  },
+  {
+    path: 'home',
+    title: 'My refrigerator · Chillwarden',
+    canMatch: [roleGuard('tenant')],
+    loadComponent: () => import('./home/home-page').then((m) => m.HomePage),
+  },
   {
     path: '**',
     title: 'Not found · Chillwarden',
