@@ -20,6 +20,8 @@ import { PowerLossWatch, type PropertyIncidentChange } from './power-loss';
 import { INCIDENT_COLUMNS, incidentViewOf } from './views';
 import { LivenessSweep } from './liveness-sweep';
 import { SerialQueue } from './serial-queue';
+import { EffectiveSettingsCache, type SettingsSource } from './settings-cache';
+import { DetectionSettingsService } from '../services/detection-settings';
 
 export interface MonitorDeps {
   dataSource: DataSource;
@@ -28,6 +30,8 @@ export interface MonitorDeps {
   clock: Clock;
   /** Appliances kept in memory; the least recently reporting ones are reloaded when needed. */
   cacheLimit?: number;
+  /** Where the organization's detection settings come from (default: the stored overrides). */
+  settings?: SettingsSource;
 }
 
 const DEFAULT_CACHE_LIMIT = 50_000;
@@ -46,8 +50,11 @@ export class MonitorService {
   private readonly queue = new SerialQueue();
   private readonly powerLoss = new PowerLossWatch();
   private readonly liveness: LivenessSweep;
+  private readonly settings: EffectiveSettingsCache;
 
   constructor(private readonly deps: MonitorDeps) {
+    const source = deps.settings ?? new DetectionSettingsService(deps.dataSource);
+    this.settings = new EffectiveSettingsCache(source, () => deps.clock.now().getTime());
     this.liveness = new LivenessSweep({ dataSource: deps.dataSource, bus: deps.bus, logger: deps.logger, cached: (id) => this.cache.get(id) });
   }
 
@@ -65,10 +72,17 @@ export class MonitorService {
     return this.queue.run(async () => undefined);
   }
 
+  /** Stops listening for settings changes once the batches handed in are handled. */
+  async close(): Promise<void> {
+    await this.idle();
+    this.settings.close();
+  }
+
   private async process(readings: readonly StoredReading[]): Promise<void> {
     const groups: Map<string, FeedReading[]> = groupByAppliance(readings);
     if (!groups.size) return;
     const appliances = await this.appliancesFor(groups);
+    await this.applySettings(appliances);
     const nowMs = this.deps.clock.now().getTime();
     const changes = new BatchChanges();
     for (const [applianceId, group] of groups) {
@@ -98,12 +112,19 @@ export class MonitorService {
     const nowMs = this.deps.clock.now().getTime();
     const loaded = await loadAppliances(this.deps.dataSource, missing);
     for (const { ref, saved } of loaded.values()) {
-      const appliance = new MonitoredAppliance(ref, saved, nowMs);
+      const appliance = new MonitoredAppliance(ref, saved, nowMs, await this.settings.get(ref.organizationId, ref.style));
       await this.catchUp(appliance, groups.get(ref.applianceId) ?? []);
       this.remember(appliance);
       found.set(ref.applianceId, appliance);
     }
     return found;
+  }
+
+  /** Cached appliances pick up settings a manager changed since their last batch. */
+  private async applySettings(appliances: Map<string, MonitoredAppliance>): Promise<void> {
+    for (const appliance of appliances.values()) {
+      appliance.useSettings(await this.settings.get(appliance.ref.organizationId, appliance.ref.style));
+    }
   }
 
   private async catchUp(appliance: MonitoredAppliance, group: FeedReading[]): Promise<void> {

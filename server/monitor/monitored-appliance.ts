@@ -1,7 +1,7 @@
 import { probesOf, type ApplianceStyle, type Health } from '../../shared/domain';
 import { DetectionEngine } from '../detection/engine';
 import { IncidentTracker, type IncidentEvent, type IncidentTrackerState } from '../detection/incidents';
-import { settingsFor } from '../detection/settings';
+import { settingsFor, type DetectionSettings } from '../detection/settings';
 import type { EngineState } from '../detection/state';
 import { isRepairFinding, type EngineEvent } from '../detection/types';
 import type { StoredReading } from '../ingest/store';
@@ -40,8 +40,7 @@ export interface FeedResult {
 }
 
 /** A saved engine state the current engine cannot take (another version) starts afresh. */
-function restoreEngine(style: ApplianceStyle, saved: EngineState | undefined): DetectionEngine {
-  const settings = settingsFor(style);
+function restoreEngine(style: ApplianceStyle, settings: DetectionSettings, saved: EngineState | undefined): DetectionEngine {
   if (!saved) return new DetectionEngine(style, settings);
   try {
     return new DetectionEngine(style, settings, saved);
@@ -52,8 +51,9 @@ function restoreEngine(style: ApplianceStyle, saved: EngineState | undefined): D
 
 /** One appliance under watch: its engine, its incident tracker and what it last reported. */
 export class MonitoredAppliance {
-  readonly engine: DetectionEngine;
-  readonly tracker: IncidentTracker;
+  private currentEngine: DetectionEngine;
+  private currentTracker: IncidentTracker;
+  private currentSettings: DetectionSettings;
   /** Quarter-hour levels for the work-order verification (rebuilt within the level window after a restart). */
   readonly trail: LevelTrail;
   health: Health;
@@ -66,14 +66,42 @@ export class MonitoredAppliance {
     readonly ref: ApplianceRef,
     saved: SavedMonitorState | null,
     nowMs: number,
+    /** The organization's effective settings for the style (defaults when not given). */
+    settings: DetectionSettings = settingsFor(ref.style),
   ) {
-    this.engine = restoreEngine(ref.style, saved?.engineState);
-    this.tracker = new IncidentTracker(settingsFor(ref.style), saved?.trackerState);
-    this.trail = new LevelTrail(probesOf(ref.style), settingsFor(ref.style));
+    this.currentSettings = settings;
+    this.currentEngine = restoreEngine(ref.style, settings, saved?.engineState);
+    this.currentTracker = new IncidentTracker(settings, saved?.trackerState);
+    this.trail = new LevelTrail(probesOf(ref.style), settings);
     this.health = saved?.health ?? 'silent';
     this.healthSinceMs = saved?.healthSinceMs ?? nowMs;
     this.lastReading = saved?.lastReading ?? null;
     this.restored = saved !== null;
+  }
+
+  get engine(): DetectionEngine {
+    return this.currentEngine;
+  }
+
+  get tracker(): IncidentTracker {
+    return this.currentTracker;
+  }
+
+  get settings(): DetectionSettings {
+    return this.currentSettings;
+  }
+
+  /**
+   * Judges from now on with other settings (a manager changed them): the engine and the
+   * tracker carry on from their current state, so nothing learned and no open finding is lost.
+   * Returns false when these are the settings already in use.
+   */
+  useSettings(settings: DetectionSettings): boolean {
+    if (settings === this.currentSettings) return false;
+    this.currentSettings = settings;
+    this.currentEngine = restoreEngine(this.ref.style, settings, this.currentEngine.snapshot());
+    this.currentTracker = new IncidentTracker(settings, this.currentTracker.snapshot());
+    return true;
   }
 
   /** Time of the newest reading the engine has taken, or null before the first. */

@@ -24,7 +24,7 @@ export function startMonitor(deps: { dataSource: DataSource; bus: EventBus; logg
     service,
     async stop() {
       clearInterval(timer);
-      await service.idle();
+      await service.close();
     },
   };
 }

@@ -35,6 +35,24 @@ function clean(stored: unknown): DetectionOverrides {
   return result;
 }
 
+export type DetectionSettingsListener = (organizationId: string, style: ApplianceStyle) => void;
+
+const changeListeners = new Set<DetectionSettingsListener>();
+
+/**
+ * Tells the listener whenever a style's overrides are replaced or reset in this process (the
+ * live monitor drops its cached settings for that organization and style). Returns the
+ * function that stops listening.
+ */
+export function onDetectionSettingsChanged(listener: DetectionSettingsListener): () => void {
+  changeListeners.add(listener);
+  return () => changeListeners.delete(listener);
+}
+
+function announceChange(organizationId: string, style: ApplianceStyle): void {
+  for (const listener of changeListeners) listener(organizationId, style);
+}
+
 /**
  * The manager's detection overrides per appliance style, over the engine's documented
  * defaults. The live monitor and the logger-file analysis read them through `effective`.
@@ -65,12 +83,14 @@ export class DetectionSettingsService {
     const stray = (Object.keys(overrides) as (keyof DetectionOverrides)[]).filter((key) => overrides[key] !== undefined && !allowed.has(key));
     if (stray.length) throw badRequest(`${stray.join(', ')} do${stray.length > 1 ? '' : 'es'} not apply to ${STYLE_NAMES[style]}`);
     await this.dataSource.getRepository(DetectionStyleSettings).save({ organizationId, style, overrides, updatedAt: new Date(), updatedByUserId: actor.id });
+    announceChange(organizationId, style);
     return this.view(actor);
   }
 
   async reset(actor: Actor, style: ApplianceStyle): Promise<DetectionSettingsView> {
     const organizationId = organizationOf(actor);
     await this.dataSource.getRepository(DetectionStyleSettings).delete({ organizationId, style });
+    announceChange(organizationId, style);
     return this.view(actor);
   }
 

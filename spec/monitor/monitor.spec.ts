@@ -6,6 +6,8 @@
 import { DetectionEngine } from '../../server/detection/engine';
 import { IncidentTracker } from '../../server/detection/incidents';
 import { MonitorService } from '../../server/monitor/monitor-service';
+import { DetectionSettingsService } from '../../server/services/detection-settings';
+import type { Actor } from '../../server/auth/actor';
 import { defaultProfile, generateTrace, randomProfile, createRng, type ApplianceProfile, type ScheduledFault } from '../../simulator/model';
 import { createDevice, createPlacement, type Placement, type TestDevice } from '../telemetry/support/telemetry-fixture';
 import { createTestDatabase, type TestDatabase } from '../support/test-db';
@@ -89,6 +91,31 @@ describe('live monitor', () => {
       expect(linked.n).toBeGreaterThan(0);
     }, SPEC_TIMEOUT_MS);
   });
+
+  it('judges with the organization\'s overrides and picks up a manager\'s change at the next batch', async () => {
+    // An organization of its own, so its override touches no other spec.
+    const own = await createPlacement(db.dataSource);
+    const device = await createDevice(db.dataSource, own, 'fresh-food-only', 300);
+    const samples = trace(defaultProfile('fresh-food-only'), 45, startMs, 2, []);
+    const clock = new SpecClock(samples[samples.length - 1].atMs);
+    const { monitor } = monitorOn(db.dataSource, clock);
+    const rig = new IngestRig(db.url, monitor.hook, 200);
+    const findings = async () => (await db.dataSource.query(`SELECT kind FROM finding WHERE appliance_id = $1`, [device.applianceId])).map((r: { kind: string }) => r.kind);
+    const cutMs = startMs + 30 * HOUR_MS;
+    await rig.play([{ deviceId: device.deviceId, samples }], -Infinity, cutMs);
+    await monitor.idle();
+    // A healthy unit near its 2.5 °C set point: nothing under the defaults (40 °F, U.S. FDA).
+    expect(await findings()).toEqual([]);
+    // The manager makes the fresh-food limit 1 °C, stricter than the FDA's, as the settings allow.
+    const settings = new DetectionSettingsService(db.dataSource);
+    const manager = { id: null, role: 'manager', organizationId: own.organizationId } as unknown as Actor;
+    await settings.replace(manager, 'fresh-food-only', { freshFoodLimitC: 1 });
+    await rig.play([{ deviceId: device.deviceId, samples }], cutMs);
+    await monitor.idle();
+    await rig.close();
+    await monitor.close();
+    expect(await findings()).toContain('over-temperature');
+  }, SPEC_TIMEOUT_MS);
 
   it('judges readings committed while it was down when it starts again (no reading left unjudged)', async () => {
     const device = await createDevice(db.dataSource, placement, 'top-freezer', 300);
