@@ -11,6 +11,9 @@ export function contractorsController(contractors: ContractorsService) {
     list: async (req: Request, res: Response) => {
       res.json(await contractors.list(actorOf(req)));
     },
+    people: async (req: Request, res: Response) => {
+      res.json(await contractors.people(actorOf(req)));
+    },
     get: async (req: Request, res: Response) => {
       res.json(await contractors.get(actorOf(req), idOf(req)));
     },

@@ -19,6 +19,8 @@ export function contractorsRoutes(controller: ReturnType<typeof contractorsContr
   return new RouteGroup('/api/contractors')
     .get('/', manager("the organization's contractors"), controller.list)
     .post('/', manager('add a contractor company'), validate({ body: CreateContractorRequest }), controller.create)
+    // Before '/:contractorId', which would take "people" for an id.
+    .get('/people', manager("the organization's contractor users, who can be added as members"), controller.people)
     .get('/:contractorId', manager('one contractor'), withId(), controller.get)
     .patch('/:contractorId', manager('change or archive a contractor'), withId(UpdateContractorRequest), controller.update)
     .post('/:contractorId/members', manager('a contractor user works for this company'), withId(ContractorMemberRequest), controller.addMember)

@@ -17,6 +17,15 @@ export class ContractorsService {
     return Promise.all(contractors.map((contractor) => this.viewOf(contractor)));
   }
 
+  /** The organization's active contractor users: whom a manager may add as a company's member. */
+  async people(actor: Actor): Promise<ContractorView['members']> {
+    const rows: { id: string; display_name: string; email: string }[] = await this.dataSource.query(
+      `SELECT id, display_name, email FROM app_user WHERE organization_id = $1 AND role = 'contractor' AND deactivated_at IS NULL ORDER BY display_name, email`,
+      [actor.organizationId],
+    );
+    return rows.map((row) => ({ userId: row.id, displayName: row.display_name, email: row.email }));
+  }
+
   async get(actor: Actor, contractorId: string): Promise<ContractorView> {
     return this.viewOf(await this.require(actor, contractorId));
   }
