@@ -5,7 +5,8 @@
  */
 import type { Logger } from 'pino';
 import type { DataSource } from 'typeorm';
-import type { CreateServiceRequest, ServiceRequestQuery, ServiceRequestView } from '../../shared/api/service-requests';
+import type { CreateServiceRequest, RequestSort, ServiceRequestExportQuery, ServiceRequestQuery, ServiceRequestView } from '../../shared/api/service-requests';
+import { EXPORT_MAX_ROWS, type RequestColumn } from '../../shared/api/tables';
 import type { Page } from '../../shared/api/users';
 import type { Priority } from '../../shared/api/work-orders';
 import type { Actor } from '../auth/actor';
@@ -13,8 +14,38 @@ import type { Clock } from '../auth/clock';
 import { badRequest, conflict, notFound } from '../errors';
 import { AfterCommit } from '../work-orders/after-commit';
 import type { TxContext, WorkOrderCore } from '../work-orders/core';
-import { MERGED_SYMPTOMS, requestViews } from '../work-orders/views';
+import { assertExportable, isoCell, type ColumnValues } from '../exports/csv-export';
+import { orderBy, rankOf, SqlFilters } from '../exports/sql-filters';
+import { MERGED_SYMPTOMS, REQUEST_FROM, requestViews } from '../work-orders/views';
 import { LIVE_JOB, type WorkOrderScope } from '../work-orders/work-order-scope';
+
+const REQUEST_SORT_KEYS: Record<RequestSort, string> = {
+  openedAt: 'r.opened_at',
+  closedAt: 'r.closed_at',
+  priority: rankOf('r.priority', ['routine', 'urgent']),
+  status: 'r.status',
+  title: 'lower(r.title)',
+  property: 'p.name',
+  unit: 'u.label',
+};
+
+/** SQL: the names of every contractor a job of the request went to, for the free-text search. */
+const CONTRACTOR_NAMES = `(SELECT string_agg(c2.name, ' ') FROM work_order w2 JOIN contractor c2 ON c2.id = w2.contractor_id WHERE w2.service_request_id = r.id)`;
+
+/** What each CSV column holds. */
+export const REQUEST_CSV: ColumnValues<RequestColumn, ServiceRequestView> = {
+  openedAt: (r) => isoCell(r.openedAt),
+  title: (r) => r.title,
+  property: (r) => r.place.propertyName,
+  unit: (r) => r.place.unitLabel,
+  appliance: (r) => r.place.applianceLabel,
+  source: (r) => r.source,
+  priority: (r) => r.priority,
+  status: (r) => r.status,
+  progress: (r) => r.progress,
+  contractor: (r) => r.workOrder?.contractorName ?? '',
+  closedAt: (r) => isoCell(r.closedAt),
+};
 
 export interface ServiceRequestsDeps {
   dataSource: DataSource;
@@ -28,15 +59,38 @@ export class ServiceRequestsService {
   constructor(private readonly deps: ServiceRequestsDeps) {}
 
   async list(actor: Actor, query: ServiceRequestQuery): Promise<Page<ServiceRequestView>> {
+    const filters = await this.filtersOf(actor, query);
+    const total = await this.count(filters);
+    const order = orderBy(REQUEST_SORT_KEYS, query.sort, query.dir, 'r.opened_at DESC, r.id');
+    const items = await requestViews(this.deps.dataSource, filters.where, filters.params, { limit: query.pageSize, offset: query.page * query.pageSize }, order);
+    return { items, total, page: query.page, pageSize: query.pageSize };
+  }
+
+  /** Every request the filters match, in the list's order; refused past the export cap. */
+  async exportRows(actor: Actor, query: ServiceRequestExportQuery): Promise<ServiceRequestView[]> {
+    const filters = await this.filtersOf(actor, query);
+    assertExportable(await this.count(filters));
+    const order = orderBy(REQUEST_SORT_KEYS, query.sort, query.dir, 'r.opened_at DESC, r.id');
+    return requestViews(this.deps.dataSource, filters.where, filters.params, { limit: EXPORT_MAX_ROWS, offset: 0 }, order);
+  }
+
+  private async filtersOf(actor: Actor, query: Omit<ServiceRequestQuery, 'page' | 'pageSize'>): Promise<SqlFilters> {
     const { where, params } = await this.reach(actor);
-    const filters = [where];
-    if (query.status !== 'all') filters.push(`r.status = $${params.push(query.status)}`);
-    if (query.propertyId) filters.push(`r.property_id = $${params.push(query.propertyId)}`);
-    if (query.applianceId) filters.push(`r.appliance_id = $${params.push(query.applianceId)}`);
-    const condition = filters.join(' AND ');
-    const [count] = await this.deps.dataSource.query(`SELECT count(*)::int AS n FROM service_request r WHERE ${condition}`, params);
-    const items = await requestViews(this.deps.dataSource, condition, params, { limit: query.pageSize, offset: query.page * query.pageSize });
-    return { items, total: count.n, page: query.page, pageSize: query.pageSize };
+    const filters = new SqlFilters(params).add(where);
+    if (query.status !== 'all') filters.add(`r.status = ${filters.param(query.status)}`);
+    filters
+      .when(query.propertyId, (p) => `r.property_id = ${p}`)
+      .when(query.applianceId, (p) => `r.appliance_id = ${p}`)
+      .when(query.priority, (p) => `r.priority = ${p}`)
+      .when(query.source, (p) => `r.source = ${p}`)
+      .range('r.opened_at', query.openedFrom, query.openedTo)
+      .search(query.q, ['r.title', 'p.name', 'u.label', 'a.model', 'a.serial', CONTRACTOR_NAMES]);
+    return filters;
+  }
+
+  private async count(filters: SqlFilters): Promise<number> {
+    const [count] = await this.deps.dataSource.query(`SELECT count(*)::int AS n FROM ${REQUEST_FROM} WHERE ${filters.where}`, filters.params);
+    return count.n;
   }
 
   async get(actor: Actor, requestId: string): Promise<ServiceRequestView> {

@@ -12,6 +12,7 @@ import type {
   RecordLabourRequest,
   RecordPartRequest,
   ScheduleRequest,
+  WorkOrderExportQuery,
   WorkOrderQuery,
   WorkOrderSummary,
   WorkOrderView,
@@ -25,7 +26,8 @@ import { recordChange } from '../work-orders/log';
 import type { OrgSettingsService } from '../work-orders/org-settings';
 import { isWorkable } from '../work-orders/states';
 import type { Verification } from '../work-orders/verification';
-import { workOrderSummaries, workOrderView } from '../work-orders/views';
+import { workOrderView } from '../work-orders/views';
+import { WorkOrderList } from './work-order-list';
 import type { WorkOrderPlace, WorkOrderScope } from '../work-orders/work-order-scope';
 
 export interface WorkOrdersDeps {
@@ -40,24 +42,20 @@ export interface WorkOrdersDeps {
 
 const MINUTE_MS = 60_000;
 
-const STATUS_FILTERS: Record<WorkOrderQuery['status'], string> = {
-  open: `wo.state IN ('dispatched','accepted','scheduled','on-site','reopened')`,
-  overdue: `wo.state IN ('dispatched','accepted','scheduled','on-site','reopened') AND wo.due_at < $2`,
-  completed: `wo.state IN ('completed','verified')`,
-  all: 'true',
-};
-
 export class WorkOrdersService {
-  constructor(private readonly deps: WorkOrdersDeps) {}
+  private readonly rows: WorkOrderList;
 
-  async list(actor: Actor, query: WorkOrderQuery): Promise<Page<WorkOrderSummary>> {
-    const now = this.deps.clock.now();
-    const reach = actor.role === 'manager' ? 'wo.organization_id = $1' : 'wo.contractor_id = ANY($1::uuid[])';
-    const subject = actor.role === 'manager' ? actor.organizationId : await this.deps.scope.contractorIdsOf(actor);
-    const where = `${reach} AND ${STATUS_FILTERS[query.status]} AND $2::timestamptz IS NOT NULL`;
-    const [count] = await this.deps.dataSource.query(`SELECT count(*)::int AS n FROM work_order wo WHERE ${where}`, [subject, now]);
-    const items = await workOrderSummaries(this.deps.dataSource, where, [subject, now], now.getTime(), { limit: query.pageSize, offset: query.page * query.pageSize });
-    return { items, total: count.n, page: query.page, pageSize: query.pageSize };
+  constructor(private readonly deps: WorkOrdersDeps) {
+    this.rows = new WorkOrderList(deps);
+  }
+
+  /** Filters, sorting and paging live in WorkOrderList (services/work-order-list.ts), shared with the CSV export. */
+  list(actor: Actor, query: WorkOrderQuery): Promise<Page<WorkOrderSummary>> {
+    return this.rows.list(actor, query);
+  }
+
+  exportRows(actor: Actor, query: WorkOrderExportQuery): Promise<WorkOrderSummary[]> {
+    return this.rows.exportRows(actor, query);
   }
 
   async get(actor: Actor, workOrderId: string): Promise<WorkOrderView> {

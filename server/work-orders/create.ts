@@ -8,18 +8,22 @@ import type { DataSource } from 'typeorm';
 import type { Clock } from '../auth/clock';
 import type { RouteGroup } from '../auth/route-table';
 import { contractorsController, coverageController } from '../controllers/contractors';
+import { exportsController } from '../controllers/exports';
 import { attachmentsController, incidentsController, notificationPreferencesController, orgSettingsController } from '../controllers/monitor';
 import { serviceRequestsController } from '../controllers/service-requests';
 import { tenantHomeController } from '../controllers/tenant-home';
 import { workOrdersController } from '../controllers/work-orders';
 import type { EventBus } from '../events/bus';
 import type { Mailer } from '../mail/mailer';
+import { CsvExporter } from '../exports/csv-export';
 import { contractorsRoutes, coverageRoutes } from '../routes/contractors';
+import { exportRoutes } from '../routes/exports';
 import { attachmentsRoutes, incidentsRoutes, notificationPreferencesRoutes, orgSettingsRoutes } from '../routes/monitor';
 import { serviceRequestsRoutes } from '../routes/service-requests';
 import { tenantHomeRoutes } from '../routes/tenant-home';
 import { workOrdersRoutes } from '../routes/work-orders';
 import { AttachmentsService } from '../services/attachments';
+import { AuditService } from '../services/audit';
 import { ContractorsService } from '../services/contractors';
 import { CoverageService } from '../services/coverage';
 import { IncidentsService } from '../services/incidents';
@@ -78,7 +82,10 @@ export function createWorkOrders(options: WorkOrdersOptions) {
     incidents: new IncidentsService(dataSource),
     preferences: new NotificationPreferencesService(dataSource, clock),
   };
+  const exporter = new CsvExporter(new AuditService(dataSource, clock), () => clock.now());
   const routes: RouteGroup[] = [
+    // First: the exports' `/export` paths come before the groups' `/:id` ones.
+    ...exportRoutes(exportsController({ exporter, incidents: services.incidents, serviceRequests: services.serviceRequests, workOrders: services.workOrders })),
     serviceRequestsRoutes(serviceRequestsController(services.serviceRequests)),
     workOrdersRoutes(workOrdersController(services.workOrders, attachments)),
     contractorsRoutes(contractorsController(services.contractors)),

@@ -12,6 +12,7 @@ import {
   type WorkOrderSummary,
   type WorkOrderView,
 } from '../../shared/api/work-orders';
+import type { PlaceLabels } from '../../shared/api/tables';
 import type { ApplianceStyle, CauseCode } from '../../shared/domain';
 import { INCIDENT_COLUMNS, incidentViewOf } from '../monitor/views';
 
@@ -48,14 +49,33 @@ async function incidentsById(db: Db, ids: string[]): Promise<Map<string, Inciden
   return new Map(rows.map((row) => [row.id as string, incidentViewOf(row)]));
 }
 
-/** Requests matching a condition over alias r (with its parameters), newest first; each with its active (else latest) job. */
-export async function requestViews(db: Db, where: string, params: unknown[], page = { limit: 200, offset: 0 }): Promise<ServiceRequestView[]> {
+/** A request with where it is: conditions and sort keys may use aliases r, p (property), u (unit) and a (appliance). */
+export const REQUEST_FROM = `service_request r JOIN property p ON p.id = r.property_id LEFT JOIN unit u ON u.id = r.unit_id LEFT JOIN appliance a ON a.id = r.appliance_id`;
+
+/** SQL: "top-freezer RT18" from the appliance's style and model (alias a), null without an appliance. */
+export const APPLIANCE_LABEL_SQL = `nullif(concat_ws(' ', a.style, nullif(a.model, '')), '')`;
+
+export function placeOf(row: Row): PlaceLabels {
+  return {
+    propertyName: row.property_name as string,
+    timeZone: row.property_time_zone as string,
+    unitLabel: (row.unit_label as string | null) ?? null,
+    applianceLabel: (row.appliance_label as string | null) ?? null,
+  };
+}
+
+/**
+ * Requests matching a condition over REQUEST_FROM's aliases (with its parameters), newest
+ * first unless told otherwise; each with its active (else latest) job.
+ */
+export async function requestViews(db: Db, where: string, params: unknown[], page = { limit: 200, offset: 0 }, orderBy = 'r.opened_at DESC, r.id'): Promise<ServiceRequestView[]> {
   const rows: Row[] = await db.query(
-    `SELECT r.*, wo.id AS wo_id, wo.state AS wo_state, wo.scheduled_start_at, wo.scheduled_end_at, wo.due_at, c.name AS contractor_name
-       FROM service_request r
+    `SELECT r.*, wo.id AS wo_id, wo.state AS wo_state, wo.scheduled_start_at, wo.scheduled_end_at, wo.due_at, c.name AS contractor_name,
+            p.name AS property_name, p.time_zone AS property_time_zone, u.label AS unit_label, ${APPLIANCE_LABEL_SQL} AS appliance_label
+       FROM ${REQUEST_FROM}
        LEFT JOIN LATERAL (SELECT * FROM work_order w WHERE w.service_request_id = r.id ORDER BY w.state NOT IN ('verified','declined','cancelled') DESC, w.created_at DESC LIMIT 1) wo ON true
        LEFT JOIN contractor c ON c.id = wo.contractor_id
-      WHERE ${where} ORDER BY r.opened_at DESC, r.id LIMIT ${page.limit} OFFSET ${page.offset}`,
+      WHERE ${where} ORDER BY ${orderBy} LIMIT ${page.limit} OFFSET ${page.offset}`,
     params,
   );
   if (!rows.length) return [];
@@ -90,6 +110,7 @@ export async function requestViews(db: Db, where: string, params: unknown[], pag
           dueAt: iso(row.due_at) as string,
         }
       : null,
+    place: placeOf(row),
     reports: reports.get(row.id as string) ?? [],
   }));
 }
@@ -152,8 +173,12 @@ function summaryOf(row: Row, nowMs: number): WorkOrderSummary {
   };
 }
 
-export async function workOrderSummaries(db: Db, where: string, params: unknown[], nowMs: number, page: { limit: number; offset: number }): Promise<WorkOrderSummary[]> {
-  const rows: Row[] = await db.query(`${SUMMARY_SELECT} WHERE ${where} ORDER BY wo.due_at, wo.id LIMIT ${page.limit} OFFSET ${page.offset}`, params);
+/** Conditions and sort keys over work-order summaries may use aliases wo, r, p, u and c (contractor). */
+export const WORK_ORDER_FROM = `work_order wo JOIN service_request r ON r.id = wo.service_request_id JOIN property p ON p.id = r.property_id
+    LEFT JOIN unit u ON u.id = r.unit_id JOIN contractor c ON c.id = wo.contractor_id`;
+
+export async function workOrderSummaries(db: Db, where: string, params: unknown[], nowMs: number, page: { limit: number; offset: number }, orderBy = 'wo.due_at, wo.id'): Promise<WorkOrderSummary[]> {
+  const rows: Row[] = await db.query(`${SUMMARY_SELECT} WHERE ${where} ORDER BY ${orderBy} LIMIT ${page.limit} OFFSET ${page.offset}`, params);
   return rows.map((row) => summaryOf(row, nowMs));
 }
 

@@ -3,7 +3,8 @@
  * the live events the web app's feed receives. Shared by client and server.
  */
 import { z } from 'zod';
-import type { CauseCode, FindingKind, Health, Severity } from '../domain';
+import { CAUSE_CODES, FINDING_KINDS, SEVERITIES, type CauseCode, type FindingKind, type Health, type Severity } from '../domain';
+import { ColumnsParam, INCIDENT_COLUMNS, OpenedRange, SearchText, SORT_DIRECTIONS, type PlaceLabels } from './tables';
 
 export const INCIDENT_LEVELS = ['appliance', 'property'] as const;
 export type IncidentLevel = (typeof INCIDENT_LEVELS)[number];
@@ -50,14 +51,34 @@ export interface ApplianceHealthView {
   freezerC: number | null;
 }
 
+/** Columns the incident list sorts on (severity by rank, not by name). */
+export const INCIDENT_SORTS = ['openedAt', 'startedAt', 'closedAt', 'severity', 'kind', 'property', 'unit', 'minutesAbove4c'] as const;
+export type IncidentSort = (typeof INCIDENT_SORTS)[number];
+
 export const IncidentQuery = z.object({
   status: z.enum(['open', 'closed', 'all']).default('open'),
   applianceId: z.uuid().optional(),
   propertyId: z.uuid().optional(),
+  severity: z.enum(SEVERITIES).optional(),
+  kind: z.enum(FINDING_KINDS).optional(),
+  cause: z.enum(CAUSE_CODES).optional(),
+  ...OpenedRange,
+  /** Over property name, unit label, appliance model and serial. */
+  q: SearchText,
+  sort: z.enum(INCIDENT_SORTS).default('openedAt'),
+  dir: z.enum(SORT_DIRECTIONS).default('desc'),
   page: z.coerce.number().int().min(0).default(0),
   pageSize: z.coerce.number().int().min(1).max(200).default(50),
 });
 export type IncidentQuery = z.infer<typeof IncidentQuery>;
+
+export const IncidentExportQuery = IncidentQuery.omit({ page: true, pageSize: true }).extend({ columns: ColumnsParam(INCIDENT_COLUMNS) });
+export type IncidentExportQuery = z.infer<typeof IncidentExportQuery>;
+
+/** An incident as the list answers it: with the names of where it is. */
+export interface IncidentListItem extends IncidentView {
+  place: PlaceLabels;
+}
 
 export const IncidentIdParams = z.object({ incidentId: z.uuid('not an incident id') });
 

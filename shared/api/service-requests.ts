@@ -1,6 +1,7 @@
 /** Service requests: from the monitor, a tenant's report or a manager. Shared by client and server. */
 import { z } from 'zod';
 import type { IncidentView } from './monitor';
+import { ColumnsParam, OpenedRange, REQUEST_COLUMNS, SearchText, SORT_DIRECTIONS, type PlaceLabels } from './tables';
 import { PRIORITIES, type Priority, type WorkOrderState } from './work-orders';
 
 export const REQUEST_STATUSES = ['open', 'closed', 'cancelled', 'merged'] as const;
@@ -14,14 +15,27 @@ export type RequestLevel = (typeof REQUEST_LEVELS)[number];
 
 export const ServiceRequestIdParams = z.object({ requestId: z.uuid('not a service request id') });
 
+export const REQUEST_SORTS = ['openedAt', 'closedAt', 'priority', 'status', 'title', 'property', 'unit'] as const;
+export type RequestSort = (typeof REQUEST_SORTS)[number];
+
 export const ServiceRequestQuery = z.object({
   status: z.enum([...REQUEST_STATUSES, 'all']).default('open'),
   propertyId: z.uuid().optional(),
   applianceId: z.uuid().optional(),
+  priority: z.enum(PRIORITIES).optional(),
+  source: z.enum(REQUEST_SOURCES).optional(),
+  ...OpenedRange,
+  /** Over title, property name, unit label, appliance model and serial, and the contractor's name. */
+  q: SearchText,
+  sort: z.enum(REQUEST_SORTS).default('openedAt'),
+  dir: z.enum(SORT_DIRECTIONS).default('desc'),
   page: z.coerce.number().int().min(0).default(0),
   pageSize: z.coerce.number().int().min(1).max(200).default(50),
 });
 export type ServiceRequestQuery = z.infer<typeof ServiceRequestQuery>;
+
+export const ServiceRequestExportQuery = ServiceRequestQuery.omit({ page: true, pageSize: true }).extend({ columns: ColumnsParam(REQUEST_COLUMNS) });
+export type ServiceRequestExportQuery = z.infer<typeof ServiceRequestExportQuery>;
 
 /** A manager opens a request by hand. */
 export const CreateServiceRequest = z
@@ -64,5 +78,7 @@ export interface ServiceRequestView {
   incident: IncidentView | null;
   progress: RequestProgress;
   workOrder: { id: string; state: WorkOrderState; contractorName: string; scheduledStartAt: string | null; scheduledEndAt: string | null; dueAt: string } | null;
+  /** Names of where it is, and the property's time zone for its dates. */
+  place: PlaceLabels;
   reports: { id: string; createdAt: string; symptoms: string[]; description: string; petPresent: boolean; accessWindows: { from: string; to: string }[]; photoIds: string[] }[];
 }

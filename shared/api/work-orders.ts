@@ -7,6 +7,7 @@ import { z } from 'zod';
 import { APPLIANCE_STYLES, CAUSE_CODES, SEVERITIES, type ApplianceStyle, type CauseCode, type Severity } from '../domain';
 import type { CauseInfo } from '../causes';
 import type { IncidentView } from './monitor';
+import { ColumnsParam, OpenedRange, SearchText, SORT_DIRECTIONS, WORK_ORDER_COLUMNS } from './tables';
 
 export const PRIORITIES = ['urgent', 'routine'] as const;
 export type Priority = (typeof PRIORITIES)[number];
@@ -126,12 +127,29 @@ export interface CoverageView {
 
 export const WorkOrderIdParams = z.object({ workOrderId: z.uuid('not a work order id') });
 
+export const WORK_ORDER_SORTS = ['dueAt', 'dispatchedAt', 'state', 'priority', 'contractor', 'property', 'unit', 'title'] as const;
+export type WorkOrderSort = (typeof WORK_ORDER_SORTS)[number];
+
 export const WorkOrderQuery = z.object({
   status: z.enum(['open', 'overdue', 'completed', 'all']).default('open'),
+  /** One state exactly, within the status. */
+  state: z.enum(WORK_ORDER_STATES).optional(),
+  propertyId: z.uuid().optional(),
+  serviceRequestId: z.uuid().optional(),
+  priority: z.enum(PRIORITIES).optional(),
+  /** The dispatch time, the work order's opening. */
+  ...OpenedRange,
+  /** Over title, property name, unit label and the contractor's name. */
+  q: SearchText,
+  sort: z.enum(WORK_ORDER_SORTS).default('dueAt'),
+  dir: z.enum(SORT_DIRECTIONS).default('asc'),
   page: z.coerce.number().int().min(0).default(0),
   pageSize: z.coerce.number().int().min(1).max(200).default(50),
 });
 export type WorkOrderQuery = z.infer<typeof WorkOrderQuery>;
+
+export const WorkOrderExportQuery = WorkOrderQuery.omit({ page: true, pageSize: true }).extend({ columns: ColumnsParam(WORK_ORDER_COLUMNS) });
+export type WorkOrderExportQuery = z.infer<typeof WorkOrderExportQuery>;
 
 export const DeclineRequest = z.object({ reason: z.string().trim().min(1).max(1000) }).strict();
 
