@@ -143,6 +143,7 @@ export function workOrderMatrixCases(seed: WorkOrderMatrixSeed): Record<string, 
   const unitA = { organizationId: org, unitId: seed.unitA };
   return {
     'GET /api/service-requests': { ok: 200 },
+    'GET /api/service-requests/export': { ok: 200 },
     'GET /api/service-requests/:requestId': { params: { requestId: seed.onSite.requestId }, target: { ...unitA, assigned: true, tenantSees: true }, ok: 200 },
     // Appliance A already has an open request: a second one is refused, whoever asks.
     'POST /api/service-requests': { body: { applianceId: '00000000-0000-4000-8000-000000000000', title: 'Matrix: no such appliance' }, ok: 404 },
@@ -151,6 +152,7 @@ export function workOrderMatrixCases(seed: WorkOrderMatrixSeed): Record<string, 
     'POST /api/service-requests/:requestId/merge': { ...cancelled, body: { intoRequestId: seed.onSite.requestId }, ok: SETTLED },
     'PATCH /api/service-requests/:requestId': { ...cancelled, body: { priority: 'urgent' }, ok: SETTLED },
     'GET /api/work-orders': { ok: 200 },
+    'GET /api/work-orders/export': { ok: 200 },
     'GET /api/work-orders/:workOrderId': { ...onSite, ok: 200 },
     'POST /api/work-orders/:workOrderId/accept': { ...job(seed.dispatched, {}), ok: 200 },
     'POST /api/work-orders/:workOrderId/decline': { ...job(seed.toDecline, { reason: 'no technician free this week' }), ok: 200 },
@@ -181,6 +183,7 @@ export function workOrderMatrixCases(seed: WorkOrderMatrixSeed): Record<string, 
     // JSON instead of the multipart form: the report field is missing.
     'POST /api/tenant/reports': { body: {}, ok: 400 },
     'GET /api/incidents': { ok: 200 },
+    'GET /api/incidents/export': { ok: 200 },
     'GET /api/incidents/:incidentId': { params: { incidentId: seed.incidentId }, target: unitA, ok: 200 },
     'GET /api/attachments/:attachmentId': { params: { attachmentId: seed.onSite.attachmentId }, target: { ...unitA, assigned: true }, ok: 200 },
     'GET /api/attachments/:attachmentId/thumbnail': { params: { attachmentId: seed.onSite.attachmentId }, target: { ...unitA, assigned: true }, ok: 200 },
