@@ -47,6 +47,12 @@ export interface Signature {
   /** Hours the defrost rises had been shrunk or missing before this trouble began (null: not before). */
   defrostFadedHoursBefore: number | null;
   noCooling: boolean;
+  /** Estimated compressor running share above the unit's normal (null before it is known). */
+  dutyExcess: number | null;
+  /** That estimate has stayed above its limit (the unit runs toward continuous running). */
+  runsOn: boolean;
+  /** The freezer has stayed far colder than its normal (rhythm-change.ts). */
+  coldDrift: boolean;
 }
 
 type Scores = Partial<Record<CauseCode, number>>;
@@ -165,6 +171,32 @@ function scoreDamperAndDefrost(s: Signature, scores: Scores): void {
   }
 }
 
+/**
+ * The cabinet holds its temperatures but the rhythm changed:
+ * - freezer far colder while the fresh food is not: the cold air no longer reaches the fresh
+ *   food and the compressor runs on for it. Abrupt (within hours of the first cooling) is a
+ *   damper stuck closed; a drift over many hours is a duct icing up from a dead defrost heater,
+ *   as are shrunken defrost rises;
+ * - running far more than usual at normal temperatures: first a starved condenser (dirty
+ *   coil, stopped condenser fan), then a leaking door seal (room air to cool all the time).
+ */
+function scoreRhythmChange(s: Signature, scores: Scores): void {
+  const z = s.freezer;
+  const f = s.freshFood;
+  if (s.coldDrift && z && f && f.levelRiseC > z.levelRiseC + 2) {
+    const shrunk = s.lastDefrostRiseRatio !== null && s.lastDefrostRiseRatio < SHRUNK_RISE_RATIO;
+    const slow = z.coolingHours !== null && z.coolingHours > ABRUPT_COOLING_HOURS;
+    if (shrunk || slow) add(scores, 'defrost-system', 3.5);
+    else add(scores, 'air-damper', 3.5);
+    return;
+  }
+  const near = (p: ProbeSignature | null) => p === null || Math.abs(p.levelRiseC) < 1.5;
+  if (s.runsOn && near(z) && near(f)) {
+    add(scores, 'condenser-airflow', 2.5);
+    add(scores, 'door-seal', 1.5);
+  }
+}
+
 function scoreDoorSeal(s: Signature, scores: Scores): void {
   const ratios = [s.freshFood?.spikeRatio, s.freezer?.spikeRatio].filter((r): r is number => r !== null && r !== undefined);
   const spikiest = ratios.length ? Math.max(...ratios) : 0;
@@ -190,6 +222,7 @@ export function scoreCauses(signature: Signature): CauseScores {
   scoreFastClimb(signature, scores);
   scoreModerateWarming(signature, scores);
   scoreDamperAndDefrost(signature, scores);
+  scoreRhythmChange(signature, scores);
   scoreDoorSeal(signature, scores);
   return scores;
 }

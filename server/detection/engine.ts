@@ -24,12 +24,14 @@ import { sensorSummary } from './summaries';
 import type { EngineEvent, EngineReading, Finding, LearnedNormal, ProbeLevelNow } from './types';
 import { isRepairFinding } from './types';
 import { judgeNoCooling, judgeWarming, noCoolingPatch, warmingPatch } from './warming';
+import { closeDutyBucket, finishDutyLearning, trackDuty } from './duty';
+import { judgeRhythmChange, rhythmChangePatch } from './rhythm-change';
 
 const MINUTE_MS = 60_000;
 
 // tsx/esbuild turn each imported name into a getter on the module object; the functions used
 // for every reading are bound once here so the per-reading path makes plain calls.
-const hot = { judgeValue, recordVerdict, addToBucket, trackCycle, trackExcursion, judgeOverTemp, countFreshAbove, trackDoor, hasOpenRepair };
+const hot = { judgeValue, recordVerdict, addToBucket, trackCycle, trackExcursion, judgeOverTemp, countFreshAbove, trackDoor, hasOpenRepair, trackDuty };
 
 const NO_EVENTS: readonly EngineEvent[] = Object.freeze([]);
 const INTERVAL_WEIGHT = 0.05;
@@ -98,6 +100,7 @@ export class DetectionEngine {
     const value = valueC as number;
     hot.addToBucket(p.level, value);
     hot.trackCycle(p.rhythm, value, atMs, gapMs, settings);
+    if (p === this.defrostCarrier) hot.trackDuty(this.state.duty, value, atMs, settings);
     hot.trackExcursion(this.state, p.rhythm, value, p.level.levelC ?? p.rhythm.smoothC, atMs, settings, p === this.defrostCarrier);
     hot.judgeOverTemp(this.ctx, p, value, atMs);
     if (p.probe === 'fresh_food') this.state.lastFreshAbove = value > settings.freshFoodLimitC;
@@ -137,6 +140,7 @@ export class DetectionEngine {
       const hasLevel = closeBucket(p.level, bucketEndMs, settings, this.isTransient(p));
       if (hasLevel && p.level.baselineC === null) learnLevel(p.level);
     }
+    closeDutyBucket(s.duty, !s.ready, settings);
     if (!s.ready) this.maybeFinishLearning(bucketEndMs);
     if (s.ready) this.judgeBucket(bucketEndMs, atMs);
     noteAboveHistory(s, bucketEndMs);
@@ -157,6 +161,7 @@ export class DetectionEngine {
     let learned = 0;
     for (const p of s.probes) if (p.level.baselineC !== null || finishLearning(p.level, this.spreadFloorC(p.probe))) learned++;
     s.ready = learned > 0;
+    if (s.ready) finishDutyLearning(s.duty);
   }
 
   private spreadFloorC(probe: Probe): number {
@@ -181,6 +186,7 @@ export class DetectionEngine {
       if (!repairOpen && isTrusted(p)) adaptBaseline(p.level, this.settings);
     }
     judgeNoCooling(this.ctx, bucketEndMs, atMs);
+    judgeRhythmChange(this.ctx, bucketEndMs, atMs);
     this.refreshOpenFindings(atMs);
   }
 
@@ -200,6 +206,8 @@ export class DetectionEngine {
     }
     const noCooling = noCoolingPatch(this.ctx);
     if (noCooling) patches.push(noCooling);
+    const rhythmChange = rhythmChangePatch(this.ctx);
+    if (rhythmChange) patches.push(rhythmChange);
     for (const { finding, patch } of patches) {
       updateFinding(s, finding, { ...patch, probableCauses: causes }, atMs, this.settings, this.ctx.events);
     }

@@ -58,6 +58,13 @@ export interface DetectionSettings {
   defrostMaxMinutes: number;
   defrostMinSpacingHours: number;
   defrostMissingFactor: number;
+  dutyStepMinutes: number;
+  dutyTimeConstantHours: number;
+  dutyExcessLimit: number;
+  dutySustainHours: number;
+  dutyAdaptBand: number;
+  coldDriftC: number;
+  coldDriftSustainMinutes: number;
   updateEveryMinutes: number;
   incidentReopenMinutes: number;
   powerLossMinAppliances: number;
@@ -123,6 +130,13 @@ export const SETTING_DOCS: Record<keyof DetectionSettings, SettingDoc & { value:
   defrostMaxMinutes: { value: 90, unit: 'min', reason: 'automatic defrost runs roughly 20–45 minutes (common practice, from memory); with recovery it is over within 90' },
   defrostMinSpacingHours: { value: 4, unit: 'h', reason: 'frost-free defrost runs every several hours to a few days (common practice, from memory)' },
   defrostMissingFactor: { value: 2, unit: '×', reason: 'no defrost rise for twice the learned interval means the defrost rises have disappeared' },
+  dutyStepMinutes: { value: 5, unit: 'min', reason: 'readings are compared at least this far apart when estimating how much of the time the compressor runs: over a minute a 0.0625 °C probe step is mostly noise, over five the air has moved with the compressor (common practice)' },
+  dutyTimeConstantHours: { value: 6, unit: 'h', reason: 'time constant of the EWMA of that estimate: several compressor cycles, short against the days a failing part takes (common practice)' },
+  dutyExcessLimit: { value: 0.17, unit: 'share', reason: 'the estimated share of running time this far above the unit\'s own normal (for example 45 % → 62 %) is more than a hot afternoon or a grocery load adds over half a day: the unit runs toward continuous running (common practice; set on simulated traces with hot days and groceries, healthy units stayed below 0.14)' },
+  dutySustainHours: { value: 12, unit: 'h', reason: 'the estimate must stay above that limit this long: a grocery load is pulled down within hours, and half a hot day is not enough (common practice)' },
+  dutyAdaptBand: { value: 0.05, unit: 'share', reason: 'the learned normal running share follows the estimate only while it stays this close, so a failure is never learned as normal' },
+  coldDriftC: { value: 4, unit: '°C', reason: 'a freezer level this far below its own normal means the compressor runs far more than it should while cold air does not reach the fresh food (a damper, an iced duct); door openings and hot days never make a freezer colder (common practice; healthy simulated units stayed within 2.3 °C)' },
+  coldDriftSustainMinutes: { value: 360, unit: 'min', reason: 'the freezer must stay that much colder for six hours (common practice)' },
   updateEveryMinutes: { value: 60, unit: 'min', reason: 'an open finding reports its running figures at most this often unless something material changes' },
   incidentReopenMinutes: { value: 720, unit: 'min', reason: 'trouble returning within 12 hours of recovery is the same failure, not a new incident (hysteresis, common practice)' },
   powerLossMinAppliances: { value: 3, unit: 'count', reason: 'three or more units of a property warming together point to the supply, not the appliances (common practice)' },

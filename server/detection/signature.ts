@@ -4,6 +4,7 @@ import { HOUR_MS, isTrusted, probeState, type EngineContext } from './context';
 import { causesFrom, rememberEvidence, scoreCauses, type ProbeSignature, type Signature } from './diagnosis';
 import { recentRiseC, recentSlopeCPerHour, residualC, robustSlopeCPerHour } from './level';
 import { transientLimitMinutes } from './rhythm';
+import { dutyExcess } from './duty';
 import { median } from './stats/robust';
 import type { ProbeState } from './state';
 import type { ProbableCause } from './types';
@@ -86,6 +87,9 @@ export function currentSignature(ctx: EngineContext): Signature {
     lastDefrostRiseRatio: lastDefrostRiseRatio(ctx),
     defrostFadedHoursBefore: defrostFadedHoursBefore(ctx),
     noCooling: ctx.state.noCoolingFindingId !== null,
+    dutyExcess: dutyExcess(ctx.state.duty),
+    runsOn: ctx.state.duty.aboveSinceMs !== null,
+    coldDrift: ctx.state.rhythmChange.coldDriftSinceMs !== null,
   };
 }
 

@@ -6,8 +6,10 @@
 import type { ApplianceStyle, CauseCode, Probe } from '../../shared/domain';
 import type { Finding, ProbeLevelNow } from './types';
 import { newCusum, type CusumState } from './stats/cusum';
+import { newDutyState } from './duty';
 
-export const STATE_VERSION = 1;
+// 2: the compressor duty estimate and the rhythm-change finding.
+export const STATE_VERSION = 2;
 
 export type SensorFaultReason = 'disconnected' | 'power-on' | 'implausible' | 'jumps' | 'stuck' | 'dropout';
 
@@ -101,6 +103,32 @@ export interface ProbeState {
   rhythm: ProbeRhythm;
 }
 
+/** The compressor duty estimate (duty.ts). */
+export interface DutyState {
+  /** The reading the next one is compared with, and its time. */
+  refC: number | null;
+  refAtMs: number | null;
+  /** Time the reading fell, and changed at all, in the bucket being filled. */
+  fallMs: number;
+  changeMs: number;
+  /** EWMA of the per-bucket share of falling time. */
+  ewma: number | null;
+  learnFallMs: number;
+  learnChangeMs: number;
+  /** The learned normal share. */
+  baseline: number | null;
+  /** Since when the estimate has stayed above its limit. */
+  aboveSinceMs: number | null;
+}
+
+/** A departure from the unit's own rhythm that does not warm the cabinet (rhythm-change.ts). */
+export interface RhythmChangeState {
+  /** Since when the freezer level has stayed far colder than its normal. */
+  coldDriftSinceMs: number | null;
+  findingId: string | null;
+  recoveredSinceMs: number | null;
+}
+
 export interface DefrostEvent {
   /** Start of the rise. */
   atMs: number;
@@ -139,6 +167,8 @@ export interface EngineState {
   causeEvidence: Partial<Record<CauseCode, number>>;
   noCoolingFindingId: string | null;
   noCoolingRecoveredSinceMs: number | null;
+  duty: DutyState;
+  rhythmChange: RhythmChangeState;
   /** Open findings only; a closed finding is reported once and forgotten. */
   findings: Finding[];
   lastUpdateAtMs: Record<string, number>;
@@ -237,6 +267,8 @@ export function newEngineState(style: ApplianceStyle, probes: readonly Probe[]):
     causeEvidence: {},
     noCoolingFindingId: null,
     noCoolingRecoveredSinceMs: null,
+    duty: newDutyState(),
+    rhythmChange: { coldDriftSinceMs: null, findingId: null, recoveredSinceMs: null },
     findings: [],
     lastUpdateAtMs: {},
     freshMinutesAboveTotal: 0,
