@@ -22,6 +22,8 @@ export class InventoryPage {
     { path: 'properties', label: 'Properties', icon: 'apartment' },
     { path: 'appliances', label: 'Appliances', icon: 'kitchen' },
     { path: 'sensors', label: 'Sensors', icon: 'sensors' },
+    { path: 'contractors', label: 'Contractors', icon: 'handyman' },
+    { path: 'coverage', label: 'Coverage', icon: 'grid_on' },
     { path: 'import', label: 'Import CSV', icon: 'upload_file' },
   ];
 }
