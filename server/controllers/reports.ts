@@ -2,7 +2,7 @@ import type { Request, Response } from 'express';
 import type { ReportQuery, ReportTable } from '../../shared/api/reports';
 import { actorOf } from '../auth/actor';
 import type { AuditService } from '../services/audit';
-import type { ReportsService } from '../services/reports';
+import { TABLE_SECTION, type ReportsService } from '../services/reports';
 import { toCsv } from '../services/reports-csv';
 import { reportTable } from '../services/reports-tables';
 
@@ -16,7 +16,7 @@ export function reportsController(reports: ReportsService, audit: AuditService) 
     csv: async (req: Request, res: Response) => {
       const actor = actorOf(req);
       const table = req.params.table as ReportTable;
-      const view = await reports.report(actor, req.query as unknown as ReportQuery);
+      const view = await reports.report(actor, req.query as unknown as ReportQuery, [TABLE_SECTION[table]]);
       const rows = reportTable(view, table);
       const { from, to, propertyId } = view.range;
       await audit.record({

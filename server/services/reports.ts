@@ -16,6 +16,7 @@ import type {
   ReportCause,
   ReportQuery,
   ReportRange,
+  ReportTable,
   ReportView,
   SpendFigures,
 } from '../../shared/api/reports';
@@ -113,34 +114,69 @@ export class ReportsService {
     return { ...range, organizationId: actor.organizationId };
   }
 
-  async report(actor: Actor, query: ReportQuery): Promise<ReportView> {
+  /**
+   * The report; with `sections`, only those are computed (a CSV download needs one) and the
+   * others are left empty.
+   */
+  async report(actor: Actor, query: ReportQuery, sections: readonly ReportSection[] = REPORT_SECTIONS): Promise<ReportView> {
     const { organizationId, ...range } = await this.rangeFor(actor, query);
     const params = [organizationId, range.from, range.to, range.timeZone, range.propertyId];
     const run = (sql: string) => this.dataSource.query(sql, params) as Promise<Row[]>;
-    const [rate, [times], byProperty, byAppliance, old, causes] = await Promise.all([
-      run(INCIDENT_RATE_SQL),
-      run(RESPONSE_TIMES_SQL),
-      run(SPEND_BY_PROPERTY_SQL),
-      run(SPEND_BY_APPLIANCE_SQL),
-      run(PAST_LIFE_SQL),
-      run(TOP_CAUSES_SQL),
-    ]);
     const rangeEndMs = Date.parse(`${range.to}T00:00:00Z`);
-    const judged = num(times.judged);
-    return {
-      range,
-      incidentRate: rate.map(incidentMonth),
-      responseTimes: {
-        requests: num(times.requests),
-        toDispatch: duration(times.dispatched, times.dispatch_minutes),
-        toRepair: duration(times.completed, times.repair_minutes),
-        toVerified: duration(times.verified, times.verified_minutes),
-      },
-      firstVisitFix: { fixedFirstVisit: num(times.fixed_first_visit), judged, rate: judged ? round(num(times.fixed_first_visit) / judged, 4) : null },
-      spendByProperty: byProperty.map(propertySpend),
-      spendByAppliance: byAppliance.map(applianceSpend),
-      pastLife: old.map((row) => pastLife(row, rangeEndMs)).filter((row): row is PastLifeAppliance => row !== null),
-      topCauses: causes.map(causeFigures),
-    };
+    const parts = await Promise.all(sections.map((section) => LOADERS[section](run, rangeEndMs)));
+    return Object.assign(emptyReport(range), ...parts);
   }
 }
+
+type Run = (sql: string) => Promise<Row[]>;
+
+export const REPORT_SECTIONS = ['incidentRate', 'responseTimes', 'spendByProperty', 'spendByAppliance', 'pastLife', 'topCauses'] as const;
+export type ReportSection = (typeof REPORT_SECTIONS)[number];
+
+/** The section each CSV table is written from. */
+export const TABLE_SECTION: Readonly<Record<ReportTable, ReportSection>> = {
+  'incident-rate': 'incidentRate',
+  'response-times': 'responseTimes',
+  'spend-by-property': 'spendByProperty',
+  'spend-by-appliance': 'spendByAppliance',
+  'past-life': 'pastLife',
+  'top-causes': 'topCauses',
+};
+
+function emptyReport(range: ReportRange): ReportView {
+  const none = { meanMinutes: null, count: 0 };
+  return {
+    range,
+    incidentRate: [],
+    responseTimes: { requests: 0, toDispatch: none, toRepair: none, toVerified: none },
+    firstVisitFix: { fixedFirstVisit: 0, judged: 0, rate: null },
+    spendByProperty: [],
+    spendByAppliance: [],
+    pastLife: [],
+    topCauses: [],
+  };
+}
+
+function responseFigures(times: Row): Pick<ReportView, 'responseTimes' | 'firstVisitFix'> {
+  const judged = num(times.judged);
+  return {
+    responseTimes: {
+      requests: num(times.requests),
+      toDispatch: duration(times.dispatched, times.dispatch_minutes),
+      toRepair: duration(times.completed, times.repair_minutes),
+      toVerified: duration(times.verified, times.verified_minutes),
+    },
+    firstVisitFix: { fixedFirstVisit: num(times.fixed_first_visit), judged, rate: judged ? round(num(times.fixed_first_visit) / judged, 4) : null },
+  };
+}
+
+const LOADERS: Record<ReportSection, (run: Run, rangeEndMs: number) => Promise<Partial<ReportView>>> = {
+  incidentRate: async (run) => ({ incidentRate: (await run(INCIDENT_RATE_SQL)).map(incidentMonth) }),
+  responseTimes: async (run) => responseFigures((await run(RESPONSE_TIMES_SQL))[0]),
+  spendByProperty: async (run) => ({ spendByProperty: (await run(SPEND_BY_PROPERTY_SQL)).map(propertySpend) }),
+  spendByAppliance: async (run) => ({ spendByAppliance: (await run(SPEND_BY_APPLIANCE_SQL)).map(applianceSpend) }),
+  pastLife: async (run, rangeEndMs) => ({
+    pastLife: (await run(PAST_LIFE_SQL)).map((row) => pastLife(row, rangeEndMs)).filter((row): row is PastLifeAppliance => row !== null),
+  }),
+  topCauses: async (run) => ({ topCauses: (await run(TOP_CAUSES_SQL)).map(causeFigures) }),
+};
