@@ -126,15 +126,24 @@ function scoreModerateWarming(s: Signature, scores: Scores): void {
   if (!z || s.style === 'chest-freezer' && z.riseC < 1.5) return;
   const warmer = z.riseC >= 1.5 && z.riseC < HEADING_TO_ROOM_C && slope(z) < FAST_CLIMB_C_PER_H && z.levelC < -3;
   if (warmer && f) {
-    if (f.levelRiseC <= -FRESH_SHIFT_C) add(scores, 'condenser-airflow', 3.5);
+    if (f.levelRiseC <= -FRESH_SHIFT_C && isRunningAsUsual(s)) {
+      // Warmer although the compressor seems to run no more than usual: room air leaking in
+      // warms the cabinet through every running phase too, while a starved condenser shows
+      // as longer, clearer pull-downs (our reading of the model, no published source).
+      // The more specific sign: it outweighs the remembered early look of a starved condenser.
+      add(scores, 'door-seal', 4.5);
+      add(scores, 'condenser-airflow', 1);
+    } else if (f.levelRiseC <= -FRESH_SHIFT_C) add(scores, 'condenser-airflow', 3.5);
     else if (f.riseC >= FRESH_SHIFT_C) add(scores, 'evaporator-fan', 3.5);
     else {
       add(scores, 'evaporator-fan', 1.5);
       add(scores, 'condenser-airflow', 1.5);
     }
   } else if (warmer) {
-    // A freezer alone: a fan stop warms it faster than a starved condenser does.
-    add(scores, slope(z) >= 0.5 ? 'evaporator-fan' : 'condenser-airflow', 3);
+    // A freezer alone: a fan stop warms it faster than a starved condenser does, and without
+    // the compressor running more (a starved condenser makes it run longer).
+    const fanStop = slope(z) >= 0.5 || (s.dutyExcess !== null && s.dutyExcess <= -RUNNING_AS_USUAL_EXCESS);
+    add(scores, fanStop ? 'evaporator-fan' : 'condenser-airflow', 3);
   }
   if ((z.spikeRatio ?? 1) < CONTINUOUS_RUN_SPIKE_RATIO && warmer) add(scores, 'condenser-airflow', 0.5);
   // Later: both levelled off short of room temperature, fresh food near 10 °C. A freezer
@@ -142,6 +151,13 @@ function scoreModerateWarming(s: Signature, scores: Scores): void {
   const plateau = f !== null && f.levelRiseC >= 3 && z.levelRiseC >= 4 && z.levelC < -3 && Math.abs(slope(z)) < 0.5;
   if (plateau) add(scores, 'evaporator-fan', 2.5);
   if (!f && s.style !== 'chest-freezer' && z.levelRiseC >= 6 && z.levelC < -3 && Math.abs(slope(z)) < 0.5) add(scores, 'evaporator-fan', 1.5);
+}
+
+/** An estimated running share within this of the unit's normal counts as running as usual. */
+const RUNNING_AS_USUAL_EXCESS = 0.06;
+
+function isRunningAsUsual(s: Signature): boolean {
+  return s.style !== 'chest-freezer' && s.dutyExcess !== null && Math.abs(s.dutyExcess) < RUNNING_AS_USUAL_EXCESS;
 }
 
 function scoreDamperAndDefrost(s: Signature, scores: Scores): void {
@@ -186,7 +202,9 @@ function scoreRhythmChange(s: Signature, scores: Scores): void {
   if (s.coldDrift && z && f && f.levelRiseC > z.levelRiseC + 2) {
     const shrunk = s.lastDefrostRiseRatio !== null && s.lastDefrostRiseRatio < SHRUNK_RISE_RATIO;
     const slow = z.coolingHours !== null && z.coolingHours > ABRUPT_COOLING_HOURS;
-    if (shrunk || slow) add(scores, 'defrost-system', 3.5);
+    // Defrost rises missing for two intervals, or fading for a day before the cold came.
+    const vanished = (s.defrostOverdueRatio ?? 0) >= 2 || (s.defrostFadedHoursBefore ?? -Infinity) >= 2 * FADED_BEFORE_HOURS;
+    if (shrunk || slow || vanished) add(scores, 'defrost-system', 3.5);
     else add(scores, 'air-damper', 3.5);
     return;
   }

@@ -22,18 +22,25 @@ import { hasOpenRepair, defrostProbe } from './context';
 const MINUTE_MS = 60_000;
 const HOUR_MS = 60 * MINUTE_MS;
 
-function isQuiet(ctx: EngineContext, p: ProbeState | undefined): boolean {
-  return p !== undefined && p.validation.faultReason === null && !isSuspectStuck(p, ctx.state.nowMs ?? 0, ctx.settings);
+function isQuiet(p: ProbeState | undefined): boolean {
+  return p !== undefined && p.validation.faultReason === null;
 }
 
+/**
+ * A unit running on holds a steady temperature, so at long intervals its probe may repeat a
+ * value for half an hour: a probe that may be stuck pauses the judgement (it opens nothing)
+ * rather than restarting the sustain period; a probe called faulty restarts it.
+ */
 function trackDutyExcess(ctx: EngineContext, bucketEndMs: number): boolean {
   const d = ctx.state.duty;
   const excess = dutyExcess(d);
-  if (excess === null || excess < ctx.settings.dutyExcessLimit || !isQuiet(ctx, defrostProbe(ctx.state))) {
+  const carrier = defrostProbe(ctx.state);
+  if (excess === null || excess < ctx.settings.dutyExcessLimit || !isQuiet(carrier)) {
     d.aboveSinceMs = null;
     return false;
   }
   d.aboveSinceMs ??= bucketEndMs;
+  if (isSuspectStuck(carrier as ProbeState, ctx.state.nowMs ?? 0, ctx.settings)) return false;
   return bucketEndMs - d.aboveSinceMs >= ctx.settings.dutySustainHours * HOUR_MS;
 }
 
@@ -42,11 +49,12 @@ function trackColdDrift(ctx: EngineContext, bucketEndMs: number): boolean {
   const freezer = probeState(ctx.state, 'freezer');
   const residual = freezer ? residualC(freezer.level) : null;
   const hasFresh = probeState(ctx.state, 'fresh_food') !== undefined;
-  if (!hasFresh || residual === null || residual > -ctx.settings.coldDriftC || !isQuiet(ctx, freezer)) {
+  if (!hasFresh || residual === null || residual > -ctx.settings.coldDriftC || !isQuiet(freezer)) {
     r.coldDriftSinceMs = null;
     return false;
   }
   r.coldDriftSinceMs ??= bucketEndMs;
+  if (isSuspectStuck(freezer as ProbeState, ctx.state.nowMs ?? 0, ctx.settings)) return false;
   return bucketEndMs - r.coldDriftSinceMs >= ctx.settings.coldDriftSustainMinutes * MINUTE_MS;
 }
 
