@@ -280,6 +280,19 @@ describe('WorkOrderPage', () => {
       expect((await buttons(loader)).some((text) => text.includes('Verify'))).toBeFalse();
     });
 
+    it('sees the visits on site, and a plain word when the readings are not shared', async () => {
+      const harness = await RouterTestingHarness.create();
+      await harness.navigateByUrl('/work-orders/w1');
+      backend.expectOne('/api/work-orders/w1').flush({ ...recorded(), visits: [{ id: 'v1', arrivedAt: '2026-03-03T18:05:00.000Z', leftAt: '2026-03-03T19:20:00.000Z', notes: '' }] });
+      await settle(harness.fixture);
+      backend.expectOne((req) => req.url === '/api/appliances/a1/history').flush({ error: 'appliance not found' }, { status: 404, statusText: 'Not Found' });
+      await settle(harness.fixture);
+      const element = harness.routeNativeElement!;
+      expect(element.querySelector('cw-job-place [aria-label="Visits"]')!.textContent).toContain('Mar 3, 10:05 AM – 11:20 AM');
+      expect(element.querySelector('cw-incident-chart')!.textContent).toContain('a contractor sees them only while the job is open');
+      expect(element.querySelector('cw-reading-chart')).toBeNull();
+    });
+
     it('has nothing to decide before completion', async () => {
       const { element, loader } = await open(job({ state: 'scheduled' }));
       expect(element.querySelector('cw-cost-review')!.textContent).toContain('Nothing to decide yet');
