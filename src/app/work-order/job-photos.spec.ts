@@ -80,8 +80,9 @@ describe('JobPhotos', () => {
   it('shows why the server refused a file', async () => {
     const { fixture, element, uploaded } = await render();
     await pick(fixture, 'files', new File(['%PDF-fake'], 'invoice.pdf', { type: 'application/pdf' }));
-    backend
-      .expectOne('/api/work-orders/w1/attachments')
+    const call = backend.expectOne('/api/work-orders/w1/attachments');
+    expect((call.request.body as FormData).get('kind')).toBe('invoice'); // a PDF picked while "Before the repair" was chosen
+    call
       .flush({ error: 'only JPEG, PNG or WebP photos and PDF documents can be uploaded' }, { status: 415, statusText: 'Unsupported Media Type' });
     await settle(fixture);
     expect(element.querySelector('[role="alert"]')!.textContent).toContain('invoice.pdf was not saved: only JPEG, PNG or WebP photos and PDF documents can be uploaded');

@@ -58,7 +58,8 @@ export class JobPhotos {
   protected picked(input: HTMLInputElement): void {
     const files = Array.from(input.files ?? []);
     input.value = ''; // the same photo can be picked again after an error
-    for (const file of files) this.send(file, this.kind);
+    // A PDF is a document, not a photo of the appliance: it goes in as an invoice unless "other" was picked.
+    for (const file of files) this.send(file, file.type === 'application/pdf' && this.kind !== 'photo' ? 'invoice' : this.kind);
   }
 
   protected dismiss(key: number): void {

@@ -179,6 +179,14 @@ describe('WorkOrderPage', () => {
       expect(harness.routeNativeElement!.querySelector('cw-job-notes')!.textContent).toContain('Cause found: Something else — Door switch stuck');
     });
 
+    it('asks for a return visit when the job was reopened', async () => {
+      const { element, loader } = await open(job({ state: 'reopened', reopenedCount: 1 }));
+      expect(element.querySelector('cw-job-actions .reopened')!.textContent).toContain('schedule a return visit');
+      const offered = await buttons(loader);
+      expect(offered).toContain('eventSchedule the visit');
+      expect(offered).toContain('where_to_voteI am on site');
+    });
+
     it('shows the server’s refusal of a step', async () => {
       const { harness, loader, element } = await open();
       await (await button(loader, /Accept the job/)).click();
