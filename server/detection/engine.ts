@@ -18,7 +18,7 @@ import { judgeValue, recordVerdict } from './probe-check';
 import { cyclePeriodMinutes, doorOpeningsPerDay, trackCycle, trackDoor, trackExcursion, transientLimitMinutes } from './rhythm';
 import { DEFAULT_SETTINGS, type DetectionSettings } from './settings';
 import { currentCauses, forgetEvidence } from './signature';
-import { levelsOfState, newEngineState, STATE_VERSION, type EngineState, type ProbeState } from './state';
+import { levelsOfState, newEngineState, STATE_VERSION, upgradeState, type EngineState, type ProbeState } from './state';
 import { SENSOR_CAUSES } from './diagnosis';
 import { sensorSummary } from './summaries';
 import type { EngineEvent, EngineReading, Finding, LearnedNormal, ProbeLevelNow } from './types';
@@ -49,10 +49,11 @@ export class DetectionEngine {
   private readonly defrostCarrier: ProbeState | undefined;
 
   constructor(style: ApplianceStyle, settings: DetectionSettings = { ...DEFAULT_SETTINGS }, state?: EngineState, options: EngineOptions = {}) {
-    if (state && state.version !== STATE_VERSION) throw new Error(`engine state version ${state.version} is not ${STATE_VERSION}`);
+    const upgraded = state ? upgradeState(state) : undefined;
+    if (state && !upgraded) throw new Error(`engine state version ${state.version} is not ${STATE_VERSION}`);
     if (state && state.style !== style) throw new Error(`engine state is for a ${state.style}, not a ${style}`);
     this.settings = settings;
-    this.state = state ? structuredClone(state) : newEngineState(style, options.probes ?? probesOf(style));
+    this.state = upgraded ? structuredClone(upgraded) : newEngineState(style, options.probes ?? probesOf(style));
     this.ctx = { state: this.state, settings, events: [] };
     this.bucketLengthMs = bucketMs(settings);
     this.defrostCarrier = defrostProbe(this.state);
@@ -140,8 +141,10 @@ export class DetectionEngine {
       const hasLevel = closeBucket(p.level, bucketEndMs, settings, this.isTransient(p));
       if (hasLevel && p.level.baselineC === null) learnLevel(p.level);
     }
-    closeDutyBucket(s.duty, !s.ready, settings);
+    closeDutyBucket(s.duty, !s.ready || s.duty.baseline === null, settings);
     if (!s.ready) this.maybeFinishLearning(bucketEndMs);
+    // A state from before the duty estimate (or a day without movement) learns its normal late.
+    else if (s.duty.baseline === null && s.duty.learnChangeMs >= (settings.learningHours / 2) * 60 * MINUTE_MS) finishDutyLearning(s.duty);
     if (s.ready) this.judgeBucket(bucketEndMs, atMs);
     noteAboveHistory(s, bucketEndMs);
   }

@@ -296,3 +296,14 @@ export function levelsOfState(state: EngineState): Partial<Record<Probe, ProbeLe
   }
   return levels;
 }
+
+/**
+ * A state saved by an older engine, brought to this version (null when it cannot be). Version 1
+ * lacked the duty estimate and the rhythm-change finding: both start empty and the duty's
+ * normal is learned afresh from the next readings, while everything else carries on.
+ */
+export function upgradeState(state: EngineState): EngineState | null {
+  if (state.version === STATE_VERSION) return state;
+  if (state.version !== 1) return null;
+  return { ...state, version: STATE_VERSION, duty: newDutyState(), rhythmChange: { coldDriftSinceMs: null, findingId: null, recoveredSinceMs: null } };
+}

@@ -133,6 +133,24 @@ describe('rhythm-change findings', () => {
     expect(result.findings.some((f) => f.kind === 'sensor-fault' && f.compartment === 'freezer')).toBeTrue();
   });
 
+  it('resumes a state saved before the duty estimate existed (version 1) and learns its normal afresh', () => {
+    const readings = simulate({ style: 'top-freezer', days: 3 });
+    const firstDay = readings.filter((r) => r.atMs < START_MS + 30 * HOUR_MS);
+    const saved = run(firstDay, 'top-freezer').engine.snapshot() as unknown as Record<string, unknown>;
+    delete saved.duty;
+    delete saved.rhythmChange;
+    saved.version = 1;
+    const resumed = new DetectionEngine('top-freezer', undefined, saved as never);
+    const baseline = resumed.baselineC('freezer');
+    expect(resumed.learned().ready).toBeTrue();
+    for (const r of readings.filter((x) => x.atMs >= START_MS + 30 * HOUR_MS)) resumed.push(r);
+    const state = resumed.snapshot();
+    expect(state.version).toBe(2);
+    expect(state.duty.baseline).not.toBeNull();
+    expect(resumed.baselineC('freezer')!).toBeCloseTo(baseline!, 0);
+    expect(resumed.openFindings().filter((f) => f.kind !== 'sensor-fault')).toEqual([]);
+  });
+
   it('is causal: cut at the reading that concluded it, the engine concludes the same', () => {
     const readings = simulate({ style: 'upright-freezer', days: 5, fault: 'condenser-airflow', onsetHours: 30, severity: 0.9, profile: { roomMeanC: 18 } });
     const first = repairFindings(run(readings, 'upright-freezer'))[0];
