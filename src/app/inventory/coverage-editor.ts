@@ -51,7 +51,7 @@ export class CoverageEditor {
   protected readonly loading = signal(true);
   protected readonly error = signal<string | null>(null);
   protected readonly saving = signal<ReadonlySet<string>>(new Set());
-  protected readonly cellErrors = signal<Readonly<Record<string, string>>>({});
+  protected readonly cellErrors = signal<Readonly<Partial<Record<string, string>>>>({});
   protected readonly options = computed<ContractorOption[]>(() => (this.contractors() ?? []).map((c) => ({ id: c.id, name: c.name, archived: c.archivedAt !== null })));
   protected readonly noContractor = computed(() => this.contractors()?.every((c) => c.archivedAt !== null) ?? false);
   protected readonly slotKey = slotKey;
