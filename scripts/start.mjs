@@ -5,31 +5,61 @@ import { pathToFileURL } from 'node:url';
 import { ensureNodeModules } from './lib/deps.mjs';
 import { stackEnv } from './lib/env.mjs';
 import { ROOT } from './lib/paths.mjs';
+import { DEFAULT_STORYLINE_SPEED, STORYLINE_REPLAY_HOURS } from './lib/services.mjs';
 import { log, run } from './lib/shell.mjs';
 
 function parseArgs(argv) {
   const speedIndex = argv.indexOf('--speed');
   const speed = speedIndex >= 0 ? Number(argv[speedIndex + 1]) : undefined;
-  if (speed !== undefined && !(speed > 0)) throw new Error('--speed takes a positive number, e.g. --speed 60');
+  if (speed !== undefined && !(speed >= 1)) throw new Error('--speed takes a number of at least 1, e.g. --speed 60 (1: real time)');
   return { calm: argv.includes('--calm'), speed };
 }
 
-async function banner(env) {
+async function importDist(file) {
+  return import(pathToFileURL(path.join(ROOT, 'dist', 'server', 'seeds', file)).href);
+}
+
+function accountLines(list) {
+  const emailWidth = Math.max(...list.map((account) => account.email.length));
+  const passwordWidth = Math.max(...list.map((account) => account.password.length));
+  const lines = ['  Demo sign-ins (e-mail, password), and what to look at first:'];
+  for (const account of list) {
+    const who = `${account.role}${account.isAdmin ? ' (admin)' : ''}`;
+    lines.push(`    ${who.padEnd(16)} ${account.email.padEnd(emailWidth)}  ${account.password.padEnd(passwordWidth)}`);
+    if (account.lookFirst) lines.push(`    ${''.padEnd(16)} → ${account.lookFirst}`);
+  }
+  return [...lines, ''];
+}
+
+/** The storyline in wall-clock minutes after start at this speed (what the visitor can watch). */
+function storylineLines(storyline, options) {
+  if (options.calm) return ['  Calm run: no scripted faults.', ''];
+  const speed = options.speed ?? DEFAULT_STORYLINE_SPEED;
+  const lines = [`  The storyline (simulated time at ${speed}×; it catches up with the clock after about ${Math.ceil((STORYLINE_REPLAY_HOURS * 60) / Math.max(1, speed - 1))} min):`];
+  for (const step of storyline.STORYLINE) {
+    const minutes = step.startH <= 0 ? 'under way' : `from about minute ${Math.max(1, Math.round((step.startH * 60) / speed))}`;
+    lines.push(`    ${minutes.padEnd(22)} ${step.shows}`);
+  }
+  lines.push('    While the replay catches up, tiles show "silent": the newest readings are hours old until then.', '');
+  return lines;
+}
+
+async function banner(env, options) {
   const lines = [``, `  Chillwarden is running at ${env.PUBLIC_URL}`, ``];
   try {
-    const accounts = await import(pathToFileURL(path.join(ROOT, 'dist', 'server', 'seeds', 'demo-accounts.js')).href);
-    const list = accounts.DEMO_ACCOUNTS ?? accounts.default?.DEMO_ACCOUNTS ?? [];
-    const emailWidth = Math.max(...list.map((account) => account.email.length));
-    const passwordWidth = Math.max(...list.map((account) => account.password.length));
-    lines.push('  Demo sign-ins (e-mail, password):');
-    for (const account of list) {
-      lines.push(`    ${account.role.padEnd(10)} ${account.email.padEnd(emailWidth)}  ${account.password.padEnd(passwordWidth)}  ${account.note ?? ''}`.trimEnd());
-    }
-    lines.push('');
+    const accounts = await importDist('demo-accounts.js');
+    lines.push(...accountLines(accounts.DEMO_ACCOUNTS ?? accounts.default?.DEMO_ACCOUNTS ?? []));
+    const storyline = await importDist(path.join('scenario', 'storyline.js'));
+    lines.push(...storylineLines(storyline.STORYLINE ? storyline : storyline.default, options));
   } catch {
-    // no demo accounts in this build
+    // no demo scenario in this build
   }
-  lines.push(`  Fake e-mail inbox (invitations, resets, job e-mails): ${env.PUBLIC_URL}/dev/inbox`, `  System status: ${env.PUBLIC_URL}/status`, `  Stop with Ctrl-C.`, ``);
+  lines.push(
+    `  Fake e-mail inbox (invitations, resets, job e-mails): ${env.PUBLIC_URL}/dev/inbox`,
+    `  System status: ${env.PUBLIC_URL}/status`,
+    `  Rebuild the demo from scratch: npm run seed -- --reset   Stop with Ctrl-C.`,
+    ``,
+  );
   process.stdout.write(lines.join('\n') + '\n');
 }
 
@@ -60,7 +90,7 @@ async function main() {
     log('migrating and seeding the demo');
     run(process.execPath, [path.join(ROOT, 'dist', 'server', 'seeds', 'run.js')], { cwd: ROOT, env });
     stack = await startServices(env, options);
-    await banner(env);
+    await banner(env, options);
     const name = await stack.exited;
     log(`${name} stopped unexpectedly`);
     await shutdown(1);

@@ -9,6 +9,8 @@ export interface SeedContext {
   dataDir: string;
   /** "Now" for the scenario, so backfilled history ends at start time. */
   nowMs: number;
+  /** Limits the history to this many days before the live start (quick seeds for specs); default the whole scenario. */
+  historyDays?: number;
   facts: Record<string, unknown>;
   log(message: string): void;
 }

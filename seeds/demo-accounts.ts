@@ -13,6 +13,8 @@ export interface DemoAccount {
   displayName: string;
   phone: string;
   note: string;
+  /** What to look at first after signing in (the start banner prints it). */
+  lookFirst: string;
 }
 
 export const DEMO_ACCOUNTS: readonly DemoAccount[] = [
@@ -24,6 +26,7 @@ export const DEMO_ACCOUNTS: readonly DemoAccount[] = [
     displayName: 'Morgan Ashby',
     phone: '555-0142',
     note: 'administrator: also manages users',
+    lookFirst: 'People: invite a tenant (the invitation lands in the fake inbox); Reports: costs and repairs of the last months',
   },
   {
     role: 'manager',
@@ -33,6 +36,7 @@ export const DEMO_ACCOUNTS: readonly DemoAccount[] = [
     displayName: 'Dana Whitcombe',
     phone: '555-0143',
     note: 'property manager',
+    lookFirst: 'Fleet: watch 3B at The Ostler Building drift and 304 at Harrowgate Commons turn warm; Requests: the urgent work order',
   },
   {
     role: 'contractor',
@@ -42,6 +46,7 @@ export const DEMO_ACCOUNTS: readonly DemoAccount[] = [
     displayName: 'Eli Rook (Rook Appliance Repair, demo)',
     phone: '555-0188',
     note: 'repair technician',
+    lookFirst: 'Jobs: accept the urgent job at Harrowgate Commons 304, record the fan motor, complete it',
   },
   {
     role: 'tenant',
@@ -51,5 +56,6 @@ export const DEMO_ACCOUNTS: readonly DemoAccount[] = [
     displayName: 'Jun Okafor',
     phone: '555-0117',
     note: 'tenant of one unit',
+    lookFirst: 'Home: the status of unit 304 and what to do with the food while the freezer is warm',
   },
 ];

@@ -3,22 +3,39 @@ import { DataSource } from 'typeorm';
 import { loadConfig } from '../server/config';
 import { dataSourceOptions } from '../server/db/options';
 import type { SeedContext } from './context';
+import { DEFAULT_SCENARIO_SEED } from './scenario/plan';
 import { SEED_STEPS } from './steps';
 
 /**
- * `npm run seed -- [--reset] [--seed N]`: migrates, then writes the demo scenario into an
- * empty database. With --reset it first drops everything. Also called by `npm start`.
+ * `npm run seed -- [--reset] [--seed N] [--now ISO] [--history-days N]`: migrates, then writes the demo scenario
+ * into an empty database. With --reset it first drops everything. Also called by `npm start`.
+ * The same seed and "now" write the same rows (device secrets aside, which are random).
  */
-interface SeedArgs {
+export interface SeedArgs {
   reset: boolean;
   seed: number;
+  /** The scenario's "now" (default: the clock); the history ends shortly before it. */
+  nowMs?: number;
+  /** At most this many days of history per appliance (a quick seed); default the scenario's months. */
+  historyDays?: number;
 }
 
-function parseArgs(argv: string[]): SeedArgs {
-  const seedIndex = argv.indexOf('--seed');
-  const seed = seedIndex >= 0 ? Number(argv[seedIndex + 1]) : 20261201;
+function valueAfter(argv: string[], flag: string): string | undefined {
+  const index = argv.indexOf(flag);
+  return index >= 0 ? argv[index + 1] : undefined;
+}
+
+export function parseArgs(argv: string[]): SeedArgs {
+  const seedText = valueAfter(argv, '--seed');
+  const seed = seedText === undefined ? DEFAULT_SCENARIO_SEED : Number(seedText);
   if (!Number.isInteger(seed)) throw new Error('--seed takes a whole number');
-  return { reset: argv.includes('--reset'), seed };
+  const nowText = valueAfter(argv, '--now');
+  const nowMs = nowText === undefined ? undefined : Date.parse(nowText);
+  if (nowMs !== undefined && !Number.isFinite(nowMs)) throw new Error('--now takes an ISO 8601 time');
+  const daysText = valueAfter(argv, '--history-days');
+  const historyDays = daysText === undefined ? undefined : Number(daysText);
+  if (historyDays !== undefined && !(historyDays >= 1)) throw new Error('--history-days takes a number of days, at least 1');
+  return { reset: argv.includes('--reset'), seed, nowMs, historyDays };
 }
 
 async function isEmpty(dataSource: DataSource): Promise<boolean> {
@@ -36,14 +53,18 @@ export async function seedDatabase(dataSource: DataSource, args: SeedArgs, dataD
     dataSource,
     seed: args.seed,
     dataDir,
-    nowMs: Date.now(),
+    nowMs: args.nowMs ?? Date.now(),
+    historyDays: args.historyDays,
     facts: {},
     log: (message) => console.log(`[seed] ${message}`),
   };
+  const startedMs = Date.now();
   for (const step of SEED_STEPS) {
-    context.log(step.name);
+    const stepStartedMs = Date.now();
     await step.run(context);
+    context.log(`${step.name} (${((Date.now() - stepStartedMs) / 1000).toFixed(1)} s)`);
   }
+  context.log(`seeded in ${((Date.now() - startedMs) / 1000).toFixed(1)} s`);
   return true;
 }
 

@@ -7,14 +7,23 @@ import { ROOT } from './paths.mjs';
 const node = process.execPath;
 const dist = (file) => path.join(ROOT, 'dist', 'server', file);
 
+/** The seeded history ends this long before the seed ran (seeds/scenario/storyline.ts STORYLINE_REPLAY_HOURS). */
+export const STORYLINE_REPLAY_HOURS = 10;
+/** Simulated seconds per real second while the storyline replays (seeds/scenario/storyline.ts). */
+export const DEFAULT_STORYLINE_SPEED = 90;
+
 /**
- * Two weeks of history at full speed, then live. --speed S replays the last day at S×
- * before going live (the fleet file's faults develop in it); --calm plays no faults.
+ * The simulator continues each sensor where the seeded history stopped. By default it plays
+ * the storyline: the last STORYLINE_REPLAY_HOURS before start at 90× (under seven minutes),
+ * then live in real time. --speed S plays them at S× (1: real time, the gap written at full
+ * speed); --calm plays no scripted faults and, without --speed, no replay. A work order
+ * completed in the app repairs its appliance in the simulation.
  * @param {{ calm?: boolean, speed?: number }} options
  */
-function simulatorArgs(env, options) {
-  const args = ['--backfill-days', '14', '--idle-without-fleet'];
-  if (options.speed && options.speed !== 1) args.push('--replay-hours', '24', '--speed', String(options.speed));
+export function simulatorArgs(env, options) {
+  const args = ['--backfill-days', '1', '--idle-without-fleet', '--repair-on-completion'];
+  const speed = options.speed ?? (options.calm ? 1 : DEFAULT_STORYLINE_SPEED);
+  if (speed !== 1) args.push('--replay-hours', String(STORYLINE_REPLAY_HOURS), '--speed', String(speed));
   if (options.calm) args.push('--no-faults');
   if (env.SIMULATOR_CONTROL_PORT) args.push('--control-port', env.SIMULATOR_CONTROL_PORT);
   return args;

@@ -21,8 +21,10 @@ async function demoOrganization(context: SeedContext): Promise<string> {
   return organizationId;
 }
 
-/** The demo tenant's unit: the fleet step's first unit, else any unit of the organization, else a new one. */
+/** The demo tenant's unit: the scenario's choice, else the fleet step's first unit, else any unit of the organization, else a new one. */
 async function demoTenantUnit(context: SeedContext, organizationId: string): Promise<string> {
+  const planned = context.facts.demoTenantUnitId as string | undefined;
+  if (planned) return planned;
   const unitIds = (context.facts.unitIds ?? {}) as Record<string, string>;
   const firstKey = Object.keys(unitIds).sort()[0];
   if (firstKey) return unitIds[firstKey];

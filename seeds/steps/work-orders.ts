@@ -30,20 +30,23 @@ export const workOrdersStep: SeedStep = {
     const { dataSource } = context;
     const organizationId = context.facts.organizationId as string | undefined;
     if (!organizationId) throw new Error('the work-order step needs the demo organization (run the fleet step first)');
-    const [primary, backup] = [await insertContractor(dataSource, organizationId, DEMO_CONTRACTORS[0]), await insertContractor(dataSource, organizationId, DEMO_CONTRACTORS[1])];
+    const contractorIds = [await insertContractor(dataSource, organizationId, DEMO_CONTRACTORS[0]), await insertContractor(dataSource, organizationId, DEMO_CONTRACTORS[1])];
     await dataSource.query(
       `INSERT INTO contractor_member (contractor_id, user_id)
        SELECT $1, id FROM app_user WHERE organization_id = $2 AND role = 'contractor' AND email LIKE $3`,
-      [primary, organizationId, `%${DEMO_TECHNICIAN_DOMAIN}`],
+      [contractorIds[0], organizationId, `%${DEMO_TECHNICIAN_DOMAIN}`],
     );
+    // The scenario names each property's primary company; without it the first company is primary everywhere.
+    const primaryByProperty = (context.facts.primaryContractorByProperty ?? {}) as Record<string, 0 | 1>;
     const properties: { id: string }[] = await dataSource.query(`SELECT id FROM property WHERE organization_id = $1 ORDER BY name`, [organizationId]);
     for (const property of properties) {
+      const primaryIndex = primaryByProperty[property.id] ?? 0;
       await dataSource.query(
         `INSERT INTO coverage (organization_id, contractor_id, property_id, appliance_style, rank) VALUES ($1, $2, $4, NULL, 'primary'), ($1, $3, $4, NULL, 'backup')`,
-        [organizationId, primary, backup, property.id],
+        [organizationId, contractorIds[primaryIndex], contractorIds[1 - primaryIndex], property.id],
       );
     }
-    context.facts.contractorIds = { primary, backup };
+    context.facts.contractorIds = contractorIds;
     context.log(`${DEMO_CONTRACTORS.length} contractors covering ${properties.length} properties (primary and backup, every style)`);
   },
 };

@@ -25,7 +25,17 @@ export interface RunnerOptions {
 }
 
 const WARMUP_MS = 6 * 3_600_000;
+const MECHANICAL_FAULTS: readonly FaultCode[] = ['evaporator-fan', 'defrost-system', 'condenser-airflow', 'compressor-start', 'air-damper', 'door-seal'];
+/** A slow fault (a dead defrost heater frosts the coil for days) is replayed from its start, up to this far back. */
+const MAX_FAULT_WARMUP_MS = 21 * 86_400_000;
 const SAVE_EVERY_MS = 10_000;
+
+/** Simulation start for a device first sampled at firstAtMs: six hours before, or back to a fault still under way. */
+export function warmupStartMs(firstAtMs: number, faults: readonly ScheduledFault[]): number {
+  const ongoing = faults.filter((fault) => fault.startMs < firstAtMs && (fault.endMs === null || fault.endMs === undefined || fault.endMs > firstAtMs));
+  const earliestMs = Math.min(firstAtMs - WARMUP_MS, ...ongoing.map((fault) => fault.startMs - WARMUP_MS));
+  return Math.max(earliestMs, firstAtMs - MAX_FAULT_WARMUP_MS);
+}
 
 class DeviceRun {
   seq: number;
@@ -115,12 +125,21 @@ export class FleetRunner {
     return true;
   }
 
+  /** A technician's repair: every fault on the appliance's parts ends now (sensor faults stay). */
+  repair(deviceId: string): boolean {
+    const run = this.runs.find((candidate) => candidate.device.deviceId === deviceId);
+    if (!run) return false;
+    for (const fault of MECHANICAL_FAULTS) run.sim.clearFault(fault, run.sim.nowMs);
+    return true;
+  }
+
   private async openRun(device: FleetDevice): Promise<DeviceRun> {
     const { options } = this;
     const intervalMs = (options.intervalSecondsOverride ?? device.intervalSeconds) * 1000;
     const resumed = options.resume[device.deviceId];
     const firstAtMs = resumed ? Math.max(options.startMs, resumed.lastAtMs + intervalMs) : options.startMs;
-    const sim = new ApplianceSimulator(device.profile, { seed: device.seed, startMs: firstAtMs - WARMUP_MS, faults: options.faultsFor(device) });
+    const faults = options.faultsFor(device);
+    const sim = new ApplianceSimulator(device.profile, { seed: device.seed, startMs: warmupStartMs(firstAtMs, faults), faults });
     sim.advanceTo(firstAtMs);
     const link = await DeviceLink.open(options.mqttUrl, device);
     return new DeviceRun(device, sim, link, intervalMs, firstAtMs, resumed ? resumed.seq + 1 : 0);

@@ -5,7 +5,7 @@
  */
 import fs from 'node:fs';
 import path from 'node:path';
-import type { ApplianceStyle, CauseCode } from '../../shared/domain';
+import type { ApplianceStyle, CauseCode, Probe } from '../../shared/domain';
 import { createRng, defaultProfile, deriveSeed, randomProfile, type ApplianceProfile, type FaultCode, type Rng } from '../model';
 
 export const FLEET_FILE_NAME = 'fleet.json';
@@ -47,6 +47,8 @@ export interface FleetFault {
   startMs: number;
   endMs?: number | null;
   severity?: number;
+  /** Sensor faults only: the probe affected (default every probe). */
+  probe?: Probe;
 }
 
 export interface FleetFile {

@@ -5,6 +5,7 @@ import { loadConfig } from '../../server/config';
 import { startControlServer } from './control';
 import { FLEET_FILE_NAME, readFleetFile, SIMULATOR_STATE_FILE_NAME, type FleetFile } from './fleet';
 import { FleetRunner, type ResumeState } from './fleet-runner';
+import { watchCompletedWork } from './repairs';
 import { faultsFor, parseFaultSpec, parseWhenMs, type ParsedFault } from './schedule';
 
 const HELP = `Chillwarden fleet simulator: plays the sensors of a fleet file over MQTT, each with
@@ -41,6 +42,8 @@ Faults (the fleet file's own schedule applies unless --no-faults)
                           e.g. --fault power-loss@property:p1,start=-8h,for=5h
   --no-faults             no scheduled faults at all
   --control-port PORT     accept faults on command: POST/DELETE http://127.0.0.1:PORT/faults
+  --repair-on-completion  demo: a work order completed in the app ends its appliance's
+                          faults (watches $DATABASE_URL)
 
   --help                  this text
 `;
@@ -62,6 +65,7 @@ interface CliOptions {
   allowFuture: boolean;
   controlPort: number | null;
   idleWithoutFleet: boolean;
+  repairOnCompletion: boolean;
 }
 
 function positive(name: string, text: string | undefined, allowZero = false): number | null {
@@ -92,6 +96,7 @@ export function parseCli(argv: string[], env: NodeJS.ProcessEnv, dataDir: string
       'allow-future': { type: 'boolean' },
       'control-port': { type: 'string' },
       'idle-without-fleet': { type: 'boolean' },
+      'repair-on-completion': { type: 'boolean' },
       help: { type: 'boolean', short: 'h' },
     },
   });
@@ -113,6 +118,7 @@ export function parseCli(argv: string[], env: NodeJS.ProcessEnv, dataDir: string
     allowFuture: values['allow-future'] ?? false,
     controlPort: positive('control-port', values['control-port']),
     idleWithoutFleet: values['idle-without-fleet'] ?? false,
+    repairOnCompletion: values['repair-on-completion'] ?? false,
   };
 }
 
@@ -180,9 +186,11 @@ async function main(): Promise<void> {
   }
   const control = options.controlPort ? await startControlServer(options.controlPort, runner, fleet) : null;
   if (control) log(`faults on command at http://127.0.0.1:${options.controlPort}/faults`);
+  const repairs = options.repairOnCompletion ? watchCompletedWork(loadConfig().databaseUrl, runner, fleet, log) : null;
   log(`live at ${options.speed}× (${fleet.devices.length} sensors, ${faults.length} scheduled faults)`);
   const stop = async () => {
     control?.close();
+    await repairs?.stop();
     await runner.stop();
     process.exit(0);
   };

@@ -40,9 +40,7 @@ export function parseWhenMs(text: string, simStartMs: number, nowMs: number): nu
   return atMs;
 }
 
-export interface ParsedFault extends FleetFault {
-  probe?: Probe;
-}
+export type ParsedFault = FleetFault;
 
 function resolveTarget(target: string, fleet: FleetFile): Pick<FleetFault, 'deviceId' | 'propertyKey'> {
   if (target.startsWith('property:')) {
