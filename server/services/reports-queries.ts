@@ -29,22 +29,30 @@ const APPLIANCE_TROUBLE = `i.lane = 'repair' AND i.property_incident_id IS NULL`
  */
 export const INCIDENT_RATE_SQL = `
 WITH ${BOUNDS},
-months AS (
+months AS MATERIALIZED (
   SELECT to_char(m, 'YYYY-MM') AS month,
          greatest(m AT TIME ZONE $4, b.starts_at) AS starts_at,
          least((m + interval '1 month') AT TIME ZONE $4, b.ends_at) AS ends_at
   FROM bounds b, generate_series(date_trunc('month', $2::date::timestamp), date_trunc('month', $3::date::timestamp), interval '1 month') AS m
 ),
-fleet AS (
+fleet AS MATERIALIZED (
   SELECT a.id, greatest(a.installed_on::timestamp AT TIME ZONE $4, a.created_at) AS in_service_from, a.archived_at
   FROM appliance a JOIN unit u ON u.id = a.unit_id JOIN property p ON p.id = u.property_id
   WHERE p.organization_id = $1 AND ${PROPERTY_FILTER('p.id')}
+),
+in_service AS (
+  SELECT m.month, count(f.id) AS appliances
+  FROM months m LEFT JOIN fleet f ON f.in_service_from < m.ends_at AND (f.archived_at IS NULL OR f.archived_at > m.starts_at)
+  GROUP BY m.month
+),
+opened AS (
+  SELECT to_char(i.opened_at AT TIME ZONE $4, 'YYYY-MM') AS month, count(*) AS incidents
+  FROM incident i JOIN fleet f ON f.id = i.appliance_id CROSS JOIN bounds b
+  WHERE i.organization_id = $1 AND ${APPLIANCE_TROUBLE} AND i.opened_at >= b.starts_at AND i.opened_at < b.ends_at
+  GROUP BY 1
 )
-SELECT m.month,
-  (SELECT count(*) FROM fleet f WHERE f.in_service_from < m.ends_at AND (f.archived_at IS NULL OR f.archived_at > m.starts_at))::int AS appliances_in_service,
-  (SELECT count(*) FROM incident i JOIN fleet f ON f.id = i.appliance_id
-    WHERE i.organization_id = $1 AND ${APPLIANCE_TROUBLE} AND i.opened_at >= m.starts_at AND i.opened_at < m.ends_at)::int AS incidents
-FROM months m
+SELECT m.month, coalesce(s.appliances, 0)::int AS appliances_in_service, coalesce(o.incidents, 0)::int AS incidents
+FROM months m LEFT JOIN in_service s ON s.month = m.month LEFT JOIN opened o ON o.month = m.month
 ORDER BY m.month`;
 
 /**
@@ -167,23 +175,28 @@ ORDER BY a.installed_on, p.name, u.label, a.id`;
  */
 export const TOP_CAUSES_SQL = `
 WITH ${BOUNDS}, ${REQUESTS_IN_RANGE},
-causes AS (
-  SELECT r.id, coalesce(found.cause_found, r.top_cause, 'unknown') AS cause, found.cause_found IS NOT NULL AS found_on_site
-  FROM in_range r LEFT JOIN LATERAL (
-    SELECT wo.cause_found FROM work_order wo
-    WHERE wo.service_request_id = r.id AND wo.completed_at IS NOT NULL AND wo.cause_found IS NOT NULL
-    ORDER BY wo.completed_at DESC LIMIT 1
-  ) found ON true
+orders AS MATERIALIZED (
+  SELECT wo.id, wo.service_request_id, wo.completed_at, wo.cause_found FROM work_order wo JOIN in_range r ON r.id = wo.service_request_id
+),
+found AS (
+  SELECT DISTINCT ON (o.service_request_id) o.service_request_id AS id, o.cause_found
+  FROM orders o WHERE o.completed_at IS NOT NULL AND o.cause_found IS NOT NULL
+  ORDER BY o.service_request_id, o.completed_at DESC
+),
+causes AS MATERIALIZED (
+  SELECT r.id, coalesce(f.cause_found, r.top_cause, 'unknown') AS cause, f.cause_found IS NOT NULL AS found_on_site
+  FROM in_range r LEFT JOIN found f ON f.id = r.id
 ),
 cause_spend AS (
   SELECT c.cause, line.currency, sum(line.cents)::float8 AS cents
-  FROM causes c JOIN work_order wo ON wo.service_request_id = c.id JOIN (${COST_LINES}) line ON line.work_order_id = wo.id
+  FROM causes c JOIN orders o ON o.service_request_id = c.id JOIN (${COST_LINES}) line ON line.work_order_id = o.id
   GROUP BY c.cause, line.currency
 ),
 cause_counts AS (
   SELECT cause, count(*)::int AS requests, (count(*) FILTER (WHERE found_on_site))::int AS found_on_site FROM causes GROUP BY cause
 )
 SELECT cc.cause, cc.requests, cc.found_on_site,
-  coalesce((SELECT json_agg(json_build_object('currency', cs.currency, 'cents', cs.cents) ORDER BY cs.currency) FROM cause_spend cs WHERE cs.cause = cc.cause), '[]'::json) AS spend
-FROM cause_counts cc
+  coalesce(json_agg(json_build_object('currency', cs.currency, 'cents', cs.cents) ORDER BY cs.currency) FILTER (WHERE cs.currency IS NOT NULL), '[]'::json) AS spend
+FROM cause_counts cc LEFT JOIN cause_spend cs ON cs.cause = cc.cause
+GROUP BY cc.cause, cc.requests, cc.found_on_site
 ORDER BY cc.requests DESC, cc.cause`;
