@@ -1,6 +1,7 @@
 import { HttpClient, HttpEventType, type HttpEvent } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { type Observable, filter, map } from 'rxjs';
+import type { ServiceRequestView } from '../../../shared/api/service-requests';
 import type { Page } from '../../../shared/api/users';
 import type {
   AttachmentKind,
@@ -14,6 +15,9 @@ import type {
   WorkOrderView,
 } from '../../../shared/api/work-orders';
 import { toParams } from '../inventory/http-params';
+
+/** What the job page reads of its service request: the words and photos the tenant sent. */
+export type RequestReports = Pick<ServiceRequestView, 'id' | 'source' | 'description' | 'reports'>;
 
 /** An upload as it goes: the share sent so far, then the stored attachment. */
 export type UploadProgress = { kind: 'progress'; percent: number } | { kind: 'done'; attachment: AttachmentView };
@@ -30,6 +34,11 @@ export class WorkOrderApi {
 
   get(id: string): Observable<WorkOrderView> {
     return this.http.get<WorkOrderView>(this.url(id));
+  }
+
+  /** `GET /api/service-requests/:id`: the contractor on the job may read it too. */
+  request(serviceRequestId: string): Observable<RequestReports> {
+    return this.http.get<RequestReports>(`/api/service-requests/${encodeURIComponent(serviceRequestId)}`);
   }
 
   accept(id: string): Observable<WorkOrderView> {

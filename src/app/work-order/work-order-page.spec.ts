@@ -10,6 +10,7 @@ import type { WorkOrderView } from '../../../shared/api/work-orders';
 import type { Role } from '../../../shared/domain';
 import { sampleHistory } from '../appliance/appliance-fixtures';
 import { FakeEventSource, configureJobSpec, job, settle } from './work-order-fixtures';
+import type { RequestReports } from './work-order-api';
 import { LIVE_RELOAD_DEBOUNCE_MS, WorkOrderPage } from './work-order-page';
 
 @Component({ template: '' })
@@ -34,11 +35,16 @@ describe('WorkOrderPage', () => {
     return request;
   }
 
-  async function open(view: WorkOrderView = job()) {
+  function answerRequest(request: Partial<RequestReports> = {}) {
+    backend.expectOne('/api/service-requests/r1').flush({ id: 'r1', source: 'monitor', description: '', reports: [], ...request });
+  }
+
+  async function open(view: WorkOrderView = job(), request: Partial<RequestReports> = {}) {
     const harness = await RouterTestingHarness.create();
     await harness.navigateByUrl('/work-orders/w1');
     backend.expectOne('/api/work-orders/w1').flush(view);
     await settle(harness.fixture);
+    answerRequest(request);
     const history = view.applianceId ? answerHistory() : null;
     await settle(harness.fixture);
     const loader = TestbedHarnessEnvironment.documentRootLoader(harness.fixture);
@@ -84,6 +90,22 @@ describe('WorkOrderPage', () => {
       expect(history!.request.params.get('from')).toBe('2026-03-01T20:00:00.000Z');
       expect(history!.request.params.get('to')).toBe('2026-03-02T16:00:00.000Z');
       expect(element.querySelector('cw-reading-chart')).not.toBeNull();
+    });
+
+    it('shows what the tenant reported, in words and photos', async () => {
+      const report = { id: 't1', createdAt: '2026-03-02T16:30:00.000Z', symptoms: ['fridge-not-cold', 'noise'], description: 'Milk went sour overnight', petPresent: true, accessWindows: [], photoIds: ['ph1'] };
+      const { element } = await open(job(), { source: 'tenant', reports: [report] });
+      const reports = element.querySelector('cw-tenant-reports')!;
+      expect(reports.textContent).toContain('Tenant, Mar 2, 08:30 AM');
+      expect(reports.textContent).toContain('The fridge is not cold; Strange or loud noise');
+      expect(reports.textContent).toContain('“Milk went sour overnight”');
+      expect(reports.querySelector('a')!.getAttribute('href')).toBe('/api/attachments/ph1');
+      expect(reports.querySelector('img')!.getAttribute('src')).toBe('/api/attachments/ph1/thumbnail');
+    });
+
+    it('leaves the report card out when there is nothing reported in words', async () => {
+      const { element } = await open();
+      expect(element.querySelector('cw-tenant-reports mat-card')).toBeNull();
     });
 
     it('shows the parts and checks of another cause when it is tapped', async () => {
@@ -293,6 +315,7 @@ describe('WorkOrderPage', () => {
       await harness.navigateByUrl('/work-orders/w1');
       backend.expectOne('/api/work-orders/w1').flush({ ...recorded(), visits: [{ id: 'v1', arrivedAt: '2026-03-03T18:05:00.000Z', leftAt: '2026-03-03T19:20:00.000Z', notes: '' }] });
       await settle(harness.fixture);
+      answerRequest();
       backend.expectOne((req) => req.url === '/api/appliances/a1/history').flush({ error: 'appliance not found' }, { status: 404, statusText: 'Not Found' });
       await settle(harness.fixture);
       const element = harness.routeNativeElement!;

@@ -22,6 +22,7 @@ import { JobNotes } from './job-notes';
 import { JobPhotos } from './job-photos';
 import { JobPlace } from './job-place';
 import { SafetyCautions } from './safety-cautions';
+import { TenantReports } from './tenant-reports';
 import { WorkOrderApi } from './work-order-api';
 import { PRIORITY_LABELS, RECORDABLE_STATES, STATE_LABELS } from './work-order-words';
 
@@ -51,6 +52,7 @@ export const LIVE_RELOAD_DEBOUNCE_MS = 1_000;
     MatProgressBarModule,
     RouterLink,
     SafetyCautions,
+    TenantReports,
     ZonedDatePipe,
   ],
   templateUrl: './work-order-page.html',
