@@ -5,7 +5,7 @@
 import type { Compartment, FindingKind, Severity } from '../../shared/domain';
 import { SEVERITIES } from '../../shared/domain';
 import type { DetectionSettings } from './settings';
-import { pushRing, type EngineState } from './state';
+import type { EngineState } from './state';
 import type { EngineEvent, Finding, ProbableCause } from './types';
 
 const MINUTE_MS = 60_000;
@@ -112,9 +112,17 @@ export function countFreshAbove(state: EngineState, gapMs: number): void {
   if (state.lastFreshAbove && gapMs > 0) state.freshMinutesAboveTotal += gapMs / MINUTE_MS;
 }
 
+/** Trimmed in steps of this many entries: shifting a 400-long array every bucket cost a long file a tenth of its analysis. */
+const ABOVE_HISTORY_SLACK = 50;
+
 export function noteAboveHistory(state: EngineState, atMs: number): void {
-  pushRing(state.aboveHistory.atMs, atMs, ABOVE_HISTORY);
-  pushRing(state.aboveHistory.minutes, state.freshMinutesAboveTotal, ABOVE_HISTORY);
+  const history = state.aboveHistory;
+  history.atMs.push(atMs);
+  history.minutes.push(state.freshMinutesAboveTotal);
+  if (history.atMs.length <= ABOVE_HISTORY + ABOVE_HISTORY_SLACK) return;
+  const excess = history.atMs.length - ABOVE_HISTORY;
+  history.atMs.splice(0, excess);
+  history.minutes.splice(0, excess);
 }
 
 /** Cumulative minutes above the limit at a past time, from the per-bucket history. */

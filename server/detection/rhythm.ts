@@ -224,26 +224,39 @@ const MIN_COMB_HITS = 3;
 const MAX_PAIR_SPAN = 4;
 const MAX_DEFROST_INTERVAL_MS = 96 * HOUR_MS;
 
+/** Spacings closer than this fit the same comb: the timer is exact, the readings a minute apart. */
+const SAME_PERIOD_MS = 60_000;
+
+/** Candidate periods: spacings of rises at most a few apart, shortest first, near-repeats dropped. */
+function candidatePeriods(timesMs: Float64Array): number[] {
+  const periods: number[] = [];
+  for (let i = 0; i < timesMs.length; i++) {
+    // The period is the spacing of two rises with at most a few others (doors, a missed
+    // defrost) between them; wider pairs only repeat multiples already tried.
+    for (let j = i + 1; j < timesMs.length && j <= i + MAX_PAIR_SPAN; j++) {
+      const periodMs = timesMs[j] - timesMs[i];
+      if (periodMs >= 4 * HOUR_MS && periodMs <= MAX_DEFROST_INTERVAL_MS) periods.push(periodMs);
+    }
+  }
+  periods.sort((a, b) => a - b);
+  return periods.filter((p, k) => k === 0 || p - periods[k - 1] >= SAME_PERIOD_MS);
+}
+
 export function defrostRhythm(defrosts: readonly DefrostEvent[]): DefrostRhythm {
   const lastAtMs = defrosts.length ? defrosts[defrosts.length - 1].atMs : null;
   let bestScore = 0;
   let bestAnchor = -1;
   let bestPeriodMs = 0;
   const timesMs = Float64Array.from(defrosts, (d) => d.atMs);
-  for (let i = 0; i < timesMs.length; i++) {
-    // The period is the spacing of two rises with at most a few others (doors, a missed
-    // defrost) between them; wider pairs only repeat multiples already tried.
-    for (let j = i + 1; j < timesMs.length && j <= i + MAX_PAIR_SPAN; j++) {
-      const periodMs = timesMs[j] - timesMs[i];
-      if (periodMs < 4 * HOUR_MS || periodMs > MAX_DEFROST_INTERVAL_MS) continue;
-      const fit = combFit(timesMs, periodMs);
-      const empty = Math.round((fit.lastMs - fit.firstMs) / periodMs) + 1 - fit.hits;
-      const score = fit.hits - empty;
-      if (fit.hits >= MIN_COMB_HITS && (score > bestScore || (score === bestScore && periodMs < bestPeriodMs))) {
-        bestScore = score;
-        bestAnchor = fit.anchor;
-        bestPeriodMs = periodMs;
-      }
+  for (const periodMs of candidatePeriods(timesMs)) {
+    const fit = combFit(timesMs, periodMs);
+    const empty = Math.round((fit.lastMs - fit.firstMs) / periodMs) + 1 - fit.hits;
+    const score = fit.hits - empty;
+    // Shortest first: a longer period must score strictly better.
+    if (fit.hits >= MIN_COMB_HITS && score > bestScore) {
+      bestScore = score;
+      bestAnchor = fit.anchor;
+      bestPeriodMs = periodMs;
     }
   }
   if (bestAnchor < 0) return { intervalHours: null, riseC: null, durationMinutes: null, lastAtMs };
