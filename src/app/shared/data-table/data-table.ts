@@ -1,0 +1,41 @@
+import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatPaginatorModule } from '@angular/material/paginator';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSortModule } from '@angular/material/sort';
+import { MatTableModule } from '@angular/material/table';
+import { EmptyState } from '../empty-state/empty-state';
+import type { ServerTable } from './server-table';
+import type { TableColumn } from './table-types';
+
+/**
+ * The table of a ServerTable: sortable headers, the paginator, the chosen columns, rows
+ * that open on click or Enter, and the loading, error and empty states. On a phone it
+ * scrolls sideways with the first column kept in view.
+ */
+@Component({
+  selector: 'cw-data-table',
+  imports: [EmptyState, MatButtonModule, MatIconModule, MatPaginatorModule, MatProgressBarModule, MatSortModule, MatTableModule],
+  templateUrl: './data-table.html',
+  styleUrl: './data-table.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class DataTable<T> {
+  readonly table = input.required<ServerTable<T>>();
+  readonly columns = input.required<readonly TableColumn<T>[]>();
+  /** Ids of the columns to show, in the columns' order. */
+  readonly visible = input.required<readonly string[]>();
+  /** What the table lists, for screen readers: "Incidents". */
+  readonly label = input.required<string>();
+  readonly emptyIcon = input('inbox');
+  readonly emptyHeading = input.required<string>();
+  readonly emptyMessage = input('');
+  /** Says how to open a row, e.g. "Open the appliance of". */
+  readonly rowAction = input('Open');
+  readonly opened = output<T>();
+
+  protected readonly shown = computed(() => this.columns().filter((column) => this.visible().includes(column.id)));
+  protected readonly ids = computed(() => this.shown().map((column) => column.id));
+  protected readonly rowLabel = (row: T) => `${this.rowAction()} ${this.shown()[0]?.text(row) ?? ''}`.trim();
+}
