@@ -9,7 +9,7 @@ import { reportTable } from '../services/reports-tables';
 export function reportsController(reports: ReportsService, audit: AuditService) {
   return {
     report: async (req: Request, res: Response) => {
-      res.json(await reports.report(actorOf(req), req.query as unknown as ReportQuery));
+      res.json(await reports.summary(actorOf(req), req.query as unknown as ReportQuery));
     },
 
     /** A table as CSV; every download is written to the audit log (what, which range, how many rows). */

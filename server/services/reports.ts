@@ -5,6 +5,7 @@
  */
 import type { DataSource } from 'typeorm';
 import { ageYears, expectedLifeYears } from '../../shared/api/fleet-constants';
+import { REPORT_LIST_LIMIT } from '../../shared/api/reports-constants';
 import type {
   ApplianceSpend,
   CauseFigures,
@@ -124,7 +125,14 @@ export class ReportsService {
     const run = (sql: string) => this.dataSource.query(sql, params) as Promise<Row[]>;
     const rangeEndMs = Date.parse(`${range.to}T00:00:00Z`);
     const parts = await Promise.all(sections.map((section) => LOADERS[section](run, rangeEndMs)));
-    return Object.assign(emptyReport(range), ...parts);
+    const view: ReportView = Object.assign(emptyReport(range), ...parts);
+    return { ...view, rowCounts: { spendByAppliance: view.spendByAppliance.length, pastLife: view.pastLife.length } };
+  }
+
+  /** The report for the page: the appliance tables cut to their first REPORT_LIST_LIMIT rows. */
+  async summary(actor: Actor, query: ReportQuery): Promise<ReportView> {
+    const view = await this.report(actor, query);
+    return { ...view, spendByAppliance: view.spendByAppliance.slice(0, REPORT_LIST_LIMIT), pastLife: view.pastLife.slice(0, REPORT_LIST_LIMIT) };
   }
 }
 
@@ -154,6 +162,7 @@ function emptyReport(range: ReportRange): ReportView {
     spendByAppliance: [],
     pastLife: [],
     topCauses: [],
+    rowCounts: { spendByAppliance: 0, pastLife: 0 },
   };
 }
 

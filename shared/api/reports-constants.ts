@@ -11,3 +11,6 @@ export type ReportTable = (typeof REPORT_TABLES)[number];
 export const MAX_REPORT_MONTHS = 60;
 /** Without a range, the report covers this many calendar months up to today (this one included). */
 export const DEFAULT_REPORT_MONTHS = 12;
+
+/** The JSON report lists at most this many appliances per table; the CSV download has them all. */
+export const REPORT_LIST_LIMIT = 50;

@@ -135,5 +135,10 @@ export interface ReportView {
   spendByAppliance: ApplianceSpend[];
   pastLife: PastLifeAppliance[];
   topCauses: CauseFigures[];
+  /**
+   * How many rows the appliance tables have in all: the JSON lists the first
+   * REPORT_LIST_LIMIT of each (largest spend, oldest first), the CSV download every one.
+   */
+  rowCounts: { spendByAppliance: number; pastLife: number };
 }
 

@@ -113,6 +113,27 @@ describe('reports', () => {
     ]);
   });
 
+  it('lists at most 50 appliances per table in the page, every one in the CSV', async () => {
+    expect(report.rowCounts).toEqual({ spendByAppliance: 4, pastLife: 2 });
+    // 50 more refrigerators installed in 1990 (36 years old): 52 past their life in all.
+    const db = world.db.dataSource;
+    const [{ id: unitId }] = await db.query(`SELECT id FROM unit WHERE property_id = $1 AND label = '104'`, [fixture.birch]);
+    const added: { id: string }[] = await db.query(
+      `INSERT INTO appliance (unit_id, style, installed_on, created_at) SELECT $1, 'top-freezer', date '1990-01-01' + n, '2025-01-01T00:00:00Z' FROM generate_series(1, 50) n RETURNING id`,
+      [unitId],
+    );
+    try {
+      const page: ReportView = (await manager.get(`/api/reports?${RANGE}`)).body;
+      expect(page.rowCounts.pastLife).toBe(52);
+      expect(page.pastLife.length).toBe(50);
+      expect(page.pastLife[0].installedOn).toBe('1990-01-02'); // oldest first
+      const csv = (await manager.get(`/api/reports/past-life.csv?${RANGE}`)).text.trimEnd().split('\r\n');
+      expect(csv.length).toBe(1 + 52);
+    } finally {
+      await db.query(`DELETE FROM appliance WHERE id = ANY($1::uuid[])`, [added.map((row) => row.id)]);
+    }
+  });
+
   it('ranks causes: the cause found on site, else the diagnosis, by count and spend', () => {
     // R1 evaporator-fan (found) 26900; R4 evaporator-fan (diagnosis: not completed)
     //   2000 + 30 min × $80/h = 4000 (a request's spend counts whenever recorded) → 2 requests, 32900.

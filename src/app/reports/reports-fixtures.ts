@@ -43,6 +43,7 @@ export function sampleReport(extra: Partial<ReportView> = {}): ReportView {
       { cause: 'compressor-start', requests: 1, foundOnSite: 1, spend: [{ currency: 'USD', cents: 45000 }] },
       { cause: 'unknown', requests: 1, foundOnSite: 0, spend: [] },
     ],
+    rowCounts: { spendByAppliance: 1, pastLife: 1 },
     ...extra,
   };
 }
@@ -56,5 +57,6 @@ export function emptyReport(): ReportView {
     spendByAppliance: [],
     pastLife: [],
     topCauses: [],
+    rowCounts: { spendByAppliance: 0, pastLife: 0 },
   });
 }

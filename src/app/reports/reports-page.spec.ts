@@ -86,6 +86,12 @@ describe('ReportsPage', () => {
     expect(links).toEqual(['/appliances/appliance-a1', '/appliances/appliance-a1']);
   });
 
+  it('says when an appliance table lists only the first rows', async () => {
+    const { text } = await open('/reports', sampleReport({ rowCounts: { spendByAppliance: 1, pastLife: 1250 } }));
+    expect(text()).toContain('The 1 oldest of 1,250 appliances; the CSV download lists every one.');
+    expect(text()).not.toContain('with the largest spend of');
+  });
+
   it('offers each table as a CSV download for the same range and property', async () => {
     const { harness } = await open(`/reports?from=2025-12-01&to=2026-02-28&property=${BIRCH_ID}`, sampleReport());
     const downloads = Array.from((harness.routeNativeElement as HTMLElement).querySelectorAll<HTMLAnchorElement>('a[download]')).map((a) => a.getAttribute('href'));
