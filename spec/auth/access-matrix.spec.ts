@@ -84,8 +84,6 @@ function casesFor(f: Fixtures, messageId: string): Record<string, MatrixCase> {
     'GET /api/fleet': { ok: 200 },
     'GET /api/reports': { ok: 200 },
     'GET /api/reports/:table.csv': { params: { table: 'spend-by-property' }, ok: 200 },
-    'GET /api/reports': { ok: 200 },
-    'GET /api/reports/:table.csv': { params: { table: 'spend-by-property' }, ok: 200 },
     'GET /api/appliances/:id': { params: { id: f.org1.applianceA }, target: { organizationId: f.org1.id, unitId: f.org1.unitA }, ok: 200 },
     'GET /api/appliances/:id/history': { params: { id: f.org1.applianceA }, target: { organizationId: f.org1.id, unitId: f.org1.unitA, assigned: true }, ok: 200 },
     // Without Accept: text/event-stream the live feed answers 406 instead of streaming.
