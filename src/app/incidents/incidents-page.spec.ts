@@ -93,6 +93,8 @@ describe('IncidentsPage', () => {
     const { harness, loader } = await open();
     list().flush(page([incident(7)]));
     await settle(harness.fixture);
+    // The first cell is a real link, for the keyboard and screen readers.
+    expect(harness.routeNativeElement!.querySelector('td a.row-anchor')?.getAttribute('href')).toBe('/appliances/a7');
     const rows = await (await loader.getHarness(MatTableHarness)).getRows();
     await (await rows[0].host()).click();
     await settle(harness.fixture);

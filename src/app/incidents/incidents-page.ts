@@ -1,5 +1,4 @@
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
-import { Router } from '@angular/router';
 import { INCIDENT_SORTS, type IncidentListItem } from '../../../shared/api/monitor';
 import { Session } from '../core/auth/session';
 import { ColumnChoice } from '../shared/data-table/column-choice';
@@ -25,7 +24,6 @@ export const INCIDENT_COLUMNS_KEY = 'cw.columns.incidents';
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class IncidentsPage {
-  private readonly router = inject(Router);
   private readonly session = inject(Session);
   private readonly timeZone = this.session.user()?.timeZone ?? browserTimeZone();
   private readonly properties = propertyChoices();
@@ -62,8 +60,9 @@ export class IncidentsPage {
     { key: 'to', label: 'Opened to', kind: 'date-to' },
   ]);
 
-  protected open(incident: IncidentListItem): void {
+  /** An incident opens its appliance (a property's power loss: its first appliance). */
+  protected readonly link = (incident: IncidentListItem) => {
     const applianceId = incident.applianceId ?? incident.applianceIds[0];
-    if (applianceId) void this.router.navigate(['/appliances', applianceId]);
-  }
+    return applianceId ? ['/appliances', applianceId] : null;
+  };
 }

@@ -1,5 +1,4 @@
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
-import { Router } from '@angular/router';
 import { REQUEST_SORTS, type ServiceRequestView } from '../../../shared/api/service-requests';
 import { Session } from '../core/auth/session';
 import { ColumnChoice } from '../shared/data-table/column-choice';
@@ -25,7 +24,6 @@ export const REQUEST_COLUMNS_KEY = 'cw.columns.requests';
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class RequestsPage {
-  private readonly router = inject(Router);
   private readonly timeZone = inject(Session).user()?.timeZone ?? browserTimeZone();
   private readonly properties = propertyChoices();
 
@@ -62,7 +60,5 @@ export class RequestsPage {
     { key: 'to', label: 'Opened to', kind: 'date-to' },
   ]);
 
-  protected open(request: ServiceRequestView): void {
-    void this.router.navigate(['/requests', request.id]);
-  }
+  protected readonly link = (request: ServiceRequestView) => ['/requests', request.id];
 }

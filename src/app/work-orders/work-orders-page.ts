@@ -1,5 +1,4 @@
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
-import { Router } from '@angular/router';
 import { WORK_ORDER_SORTS, WORK_ORDER_STATES, type WorkOrderSummary } from '../../../shared/api/work-orders';
 import { Session } from '../core/auth/session';
 import { ColumnChoice } from '../shared/data-table/column-choice';
@@ -25,7 +24,6 @@ export const WORK_ORDER_COLUMNS_KEY = 'cw.columns.work-orders';
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class WorkOrdersPage {
-  private readonly router = inject(Router);
   private readonly timeZone = inject(Session).user()?.timeZone ?? browserTimeZone();
   private readonly properties = propertyChoices();
 
@@ -61,7 +59,5 @@ export class WorkOrdersPage {
     { key: 'to', label: 'Dispatched to', kind: 'date-to' },
   ]);
 
-  protected open(workOrder: WorkOrderSummary): void {
-    void this.router.navigate(['/work-orders', workOrder.id]);
-  }
+  protected readonly link = (workOrder: WorkOrderSummary) => ['/work-orders', workOrder.id];
 }
