@@ -66,8 +66,10 @@ interface UnitLayout {
   floor: number;
   /** Styles in the unit, the refrigerator first. */
   styles: ApplianceStyle[];
-  /** Range of appliance ages in years. */
+  /** Range of appliance ages in years (the units of a property spread over it evenly). */
   ages: [number, number];
+  /** Range for a freezer in the unit, when it differs. */
+  freezerAges?: [number, number];
 }
 
 /** Units whose appliances the storyline or the past repairs need in a known style. */
@@ -106,7 +108,7 @@ function townhouseUnits(): UnitLayout[] {
 /** The walk-up: original-era refrigerators and freezers past or near their expected life. */
 function olderUnits(): UnitLayout[] {
   const labels = ['1A', '1B', '2A', '2B', '3A', '3B', '4A', '4B'];
-  return labels.map((label) => ({ label, floor: Number(label[0]), styles: ['top-freezer'], ages: [9, 16] }));
+  return labels.map((label) => ({ label, floor: Number(label[0]), styles: ['top-freezer'], ages: [9, 16], freezerAges: [11.5, 15] }));
 }
 
 function layoutsOf(blueprint: PropertyBlueprint, rng: Rng): UnitLayout[] {
@@ -148,14 +150,24 @@ function rolloutMs(kind: PlannedProperty['kind'], nowMs: number): number {
   return nowMs - (kind === 'mid-rise' ? 56 : 90) * DAY_MS;
 }
 
-function planAppliance(cursor: PlanCursor, property: PropertyBlueprint, layout: UnitLayout, style: ApplianceStyle, position: number): PlannedAppliance {
+/** Stratified: the i-th of n units gets an age in the i-th slice of the range, so every range is covered. */
+function ageOf(rng: Rng, range: [number, number], unitIndex: number, unitCount: number): number {
+  const share = (unitIndex + rng()) / unitCount;
+  return Math.round((range[0] + share * (range[1] - range[0])) * 10) / 10;
+}
+
+function planAppliance(cursor: PlanCursor, property: PropertyBlueprint, layout: UnitLayout, style: ApplianceStyle, place: { position: number; unitIndex: number; unitCount: number }): PlannedAppliance {
   const { rng, nowMs } = cursor;
-  const key = `${property.key}/${layout.label}/${position + 1}`;
+  const key = `${property.key}/${layout.label}/${place.position + 1}`;
   const storyline = STORYLINE_PROFILES[key];
-  const ageYears = storyline?.ageYears ?? Math.round((layout.ages[0] + rng() * (layout.ages[1] - layout.ages[0])) * 10) / 10;
+  const range = place.position > 0 && layout.freezerAges ? layout.freezerAges : layout.ages;
+  // Shuffled slices: the age does not follow the unit number.
+  const slice = (place.unitIndex * 5 + 3) % place.unitCount;
+  const ageYears = storyline?.ageYears ?? ageOf(rng, range, slice, place.unitCount);
   const installedMs = nowMs - ageYears * YEAR_MS;
-  const seed = deriveSeed(cursor.seed, 1000 + cursor.index++);
-  const random = agedProfile(randomProfile(createRng(seed), style), ageYears);
+  const derivedSeed = deriveSeed(cursor.seed, 1000 + cursor.index++);
+  const seed = storyline?.simSeed ?? derivedSeed;
+  const random = agedProfile(randomProfile(createRng(derivedSeed), style), ageYears);
   const profile = storyline ? calibratedProfile(defaultProfile(style), storyline) : random;
   const model = pickOf(rng, MODEL_CODES[style]);
   return {
@@ -176,10 +188,11 @@ function planAppliance(cursor: PlanCursor, property: PropertyBlueprint, layout: 
 }
 
 function planProperty(cursor: PlanCursor, blueprint: PropertyBlueprint): PlannedProperty {
-  const units = layoutsOf(blueprint, cursor.rng).map((layout) => ({
+  const layouts = layoutsOf(blueprint, cursor.rng);
+  const units = layouts.map((layout, unitIndex) => ({
     label: layout.label,
     floor: layout.floor,
-    appliances: layout.styles.map((style, position) => planAppliance(cursor, blueprint, layout, style, position)),
+    appliances: layout.styles.map((style, position) => planAppliance(cursor, blueprint, layout, style, { position, unitIndex, unitCount: layouts.length })),
   }));
   return { ...blueprint, city: DEMO_CITY, region: DEMO_REGION, timeZone: DEMO_TIME_ZONE, utcOffsetHours: DEMO_UTC_OFFSET_HOURS, units };
 }

@@ -2,9 +2,11 @@ import type { QueryRunner } from 'typeorm';
 import { generateDeviceSecret, hashDeviceSecret } from '../../server/telemetry/device-secret';
 import { demoFaults, planFleet, writeFleetFile, type FleetDevice, type FleetFile, type FleetProperty } from '../../simulator/cli/fleet';
 import type { SeedContext, SeedStep } from '../context';
+import { DEMO_ORGANIZATION_NAME } from '../scenario/catalogue';
 
 /**
- * A small demo fleet: one invented organization, two properties, three appliances each (every
+ * A small fleet (specs of the simulator CLI use it; the demo itself is the scenario step,
+ * seeds/steps/scenario.ts): one invented organization, two properties, three appliances each (every
  * style once), a sensor per appliance with its own secret, and the simulator's fleet file.
  * Deterministic from the seed except the secrets, which are random: they only live in
  * the git-ignored fleet file and, hashed, in the database.
@@ -12,7 +14,7 @@ import type { SeedContext, SeedStep } from '../context';
  * Facts for later steps: organizationId, propertyIds, unitIds and applianceIds (by
  * property key / device id), fleetFile.
  */
-export const DEMO_ORGANIZATION_NAME = 'Lindenfield Rentals (demo)';
+export { DEMO_ORGANIZATION_NAME };
 const DEMO_PROPERTIES = 2;
 const DEMO_APPLIANCES_PER_PROPERTY = 3;
 const DEMO_INTERVAL_SECONDS = 300;

@@ -2,7 +2,7 @@ import type { QueryRunner } from 'typeorm';
 import { generateDeviceSecret, hashDeviceSecret } from '../../server/telemetry/device-secret';
 import { writeFleetFile } from '../../simulator/cli/fleet';
 import type { SeedContext, SeedStep } from '../context';
-import { DEMO_ORGANIZATION_NAME } from '../scenario/catalogue';
+import { DEMO_ORG_SETTINGS, DEMO_ORGANIZATION_NAME } from '../scenario/catalogue';
 import { scenarioFleetFile } from '../scenario/faults';
 import { appliancesOf, planScenario, SENSOR_INTERVAL_SECONDS, type PlannedProperty, type ScenarioPlan } from '../scenario/plan';
 
@@ -14,7 +14,7 @@ import { appliancesOf, planScenario, SENSOR_INTERVAL_SECONDS, type PlannedProper
  *
  * Facts for later steps: plan, organizationId, propertyIds (by key), unitIds (by
  * `property/unit`), applianceIds and sensorIds (by appliance key), demoTenantUnitId,
- * primaryContractorByProperty, fleetFile.
+ * primaryContractorByProperty, orgSettings, fleetFile.
  */
 async function insertOne(runner: QueryRunner, sql: string, params: unknown[]): Promise<string> {
   const rows = (await runner.query(sql, params)) as { id: string }[];
@@ -94,7 +94,7 @@ export const scenarioStep: SeedStep = {
     const secrets = Object.fromEntries(appliances.map((appliance) => [appliance.key, generateDeviceSecret()]));
     const ids = await writeWorld(context, plan, await hashSecrets(secrets));
     const primaryContractorByProperty = Object.fromEntries(plan.properties.map((property) => [ids.propertyIds[property.key], property.primaryContractor]));
-    Object.assign(context.facts, { plan, ...ids, demoTenantUnitId: ids.unitIds[plan.demoTenantUnitKey], primaryContractorByProperty });
+    Object.assign(context.facts, { plan, ...ids, demoTenantUnitId: ids.unitIds[plan.demoTenantUnitKey], primaryContractorByProperty, orgSettings: DEMO_ORG_SETTINGS });
     context.facts.fleetFile = writeFleetFile(context.dataDir, scenarioFleetFile(plan, secrets, ids.applianceIds));
     const units = plan.properties.reduce((sum, property) => sum + property.units.length, 0);
     context.log(`${plan.properties.length} properties, ${units} units, ${appliances.length} appliances with sensors, ${plan.tenants.length} more tenants; fleet file ${context.facts.fleetFile}`);

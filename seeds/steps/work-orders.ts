@@ -3,8 +3,9 @@ import type { SeedContext, SeedStep } from '../context';
 
 /**
  * The demo's repair side: two invented contractor companies, the demo contractor account
- * working for the first, and the coverage table (primary and backup for every property
- * and style). Past completed and verified work orders come with a later step.
+ * working for the first, the coverage table (for every property and style one company
+ * primary, the other backup; the scenario says which is primary where) and the demo
+ * company's own settings. Past verified work orders come with the service-history step.
  */
 export const DEMO_CONTRACTORS = [
   { name: 'Rook Appliance Repair (demo)', email: 'dispatch@rook-repair.example.com', phone: '555-0188' },
@@ -46,6 +47,8 @@ export const workOrdersStep: SeedStep = {
         [organizationId, contractorIds[primaryIndex], contractorIds[1 - primaryIndex], property.id],
       );
     }
+    const orgSettings = context.facts.orgSettings as Record<string, unknown> | undefined;
+    if (orgSettings) await dataSource.query(`INSERT INTO org_settings (organization_id, settings) VALUES ($1, $2::jsonb)`, [organizationId, JSON.stringify(orgSettings)]);
     context.facts.contractorIds = contractorIds;
     context.log(`${DEMO_CONTRACTORS.length} contractors covering ${properties.length} properties (primary and backup, every style)`);
   },
