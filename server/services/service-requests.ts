@@ -83,6 +83,7 @@ export class ServiceRequestsService {
       .when(query.applianceId, (p) => `r.appliance_id = ${p}`)
       .when(query.priority, (p) => `r.priority = ${p}`)
       .when(query.source, (p) => `r.source = ${p}`)
+      .when(query.cause, (p) => `EXISTS (SELECT 1 FROM incident ci WHERE ci.id = r.incident_id AND ci.top_cause = ${p})`)
       .range('r.opened_at', query.openedFrom, query.openedTo)
       .search(query.q, ['r.title', 'p.name', 'u.label', 'a.model', 'a.serial', CONTRACTOR_NAMES]);
     return filters;

@@ -1,5 +1,6 @@
 /** Service requests: from the monitor, a tenant's report or a manager. Shared by client and server. */
 import { z } from 'zod';
+import { CAUSE_CODES } from '../domain';
 import type { IncidentView } from './monitor';
 import { ColumnsParam, OpenedRange, REQUEST_COLUMNS, SearchText, SORT_DIRECTIONS, type PlaceLabels } from './tables';
 import { PRIORITIES, type Priority, type WorkOrderState } from './work-orders';
@@ -24,6 +25,8 @@ export const ServiceRequestQuery = z.object({
   applianceId: z.uuid().optional(),
   priority: z.enum(PRIORITIES).optional(),
   source: z.enum(REQUEST_SOURCES).optional(),
+  /** The probable cause of the incident behind the request. */
+  cause: z.enum(CAUSE_CODES).optional(),
   ...OpenedRange,
   /** Over title, property name, unit label, appliance model and serial, and the contractor's name. */
   q: SearchText,

@@ -152,6 +152,11 @@ describe('manager tables: sort, filter, paging and CSV', () => {
       expect(ids(await manager.get('/api/service-requests?q=door'))).toEqual([requestIds[1]]);
       expect((await manager.get('/api/service-requests?source=manager')).body.total).toBe(3);
       expect((await manager.get('/api/service-requests?source=tenant')).body.total).toBe(0);
+      // The cause is the incident's: request 1 points at the warming-trend incident (door seal).
+      await world.db.dataSource.query(`UPDATE service_request SET incident_id = (SELECT id FROM incident WHERE top_cause = 'door-seal') WHERE id = $1`, [requestIds[1]]);
+      expect(ids(await manager.get('/api/service-requests?cause=door-seal'))).toEqual([requestIds[1]]);
+      expect((await manager.get('/api/service-requests?cause=sensor')).body.total).toBe(0);
+      expect((await manager.get('/api/service-requests?cause=gremlins')).status).toBe(400);
       const paged = await manager.get('/api/service-requests?pageSize=1&page=1');
       expect(paged.body).toEqual(jasmine.objectContaining({ total: 3, page: 1, pageSize: 1 }));
       expect(ids(paged)).toEqual([requestIds[1]]);

@@ -10,7 +10,7 @@ import { FilterBar } from '../shared/data-table/filter-bar';
 import { propertyChoices } from '../shared/data-table/property-options';
 import { ServerTable } from '../shared/data-table/server-table';
 import type { FilterField } from '../shared/data-table/table-types';
-import { PRIORITY_CHOICES, REQUEST_SOURCE_LABELS, choices } from '../shared/data-table/table-words';
+import { CAUSE_CHOICES, PRIORITY_CHOICES, REQUEST_SOURCE_LABELS, choices } from '../shared/data-table/table-words';
 import { REQUEST_TABLE_COLUMNS } from './request-columns';
 
 export const REQUEST_COLUMNS_KEY = 'cw.columns.requests';
@@ -32,7 +32,7 @@ export class RequestsPage {
     sortKeys: REQUEST_SORTS,
     defaultSort: 'openedAt',
     defaultDir: 'desc',
-    filters: { status: 'open', propertyId: '', priority: '', source: '', from: '', to: '', q: '' },
+    filters: { status: 'open', propertyId: '', priority: '', source: '', cause: '', from: '', to: '', q: '' },
     liveTypes: ['service-request.changed', 'work-order.changed'],
     apiFilters: ({ from, to, ...rest }) => ({ ...rest, ...openedRange(from, to, this.timeZone) }),
   });
@@ -56,6 +56,7 @@ export class RequestsPage {
     { key: 'propertyId', label: 'Property', kind: 'select', options: this.properties() },
     { key: 'priority', label: 'Priority', kind: 'select', options: PRIORITY_CHOICES },
     { key: 'source', label: 'Opened by', kind: 'select', options: choices('Anyone', REQUEST_SOURCE_LABELS) },
+    { key: 'cause', label: 'Probable cause', kind: 'select', options: CAUSE_CHOICES },
     { key: 'from', label: 'Opened from', kind: 'date-from' },
     { key: 'to', label: 'Opened to', kind: 'date-to' },
   ]);
