@@ -1,11 +1,10 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
 import { AfterViewInit, ChangeDetectionStrategy, Component, DestroyRef, computed, inject, viewChild } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
-import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
+import { ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
-import { MatInputModule } from '@angular/material/input';
 import { MatMenuModule } from '@angular/material/menu';
 import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
@@ -13,14 +12,16 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
-import { catchError, debounceTime, map, of } from 'rxjs';
+import { catchError, map, of } from 'rxjs';
 import { APPLIANCE_SORTS, type ApplianceQueryInput, type ApplianceView, type ArchiveFilter, type PropertyView } from '../../../shared/api/inventory';
 import type { ApplianceStyle } from '../../../shared/domain';
 import { EmptyState } from '../shared/empty-state/empty-state';
 import { ApplianceActions } from './appliance-actions';
 import { ApplianceInventoryApi } from './appliance-inventory-api';
 import { STYLE_CHOICES, STYLE_LABELS } from './labels';
-import { PagedTable, sortDirection, sortKey } from './paged-table';
+import { ListFilterBar } from './list-filter-bar';
+import { ListFilters, nothingYet } from './list-filters';
+import { PagedTable } from './paged-table';
 import { PropertyApi } from './property-api';
 
 /** Every appliance of the organization across properties, with its sensor; server-paged. */
@@ -28,10 +29,10 @@ import { PropertyApi } from './property-api';
   selector: 'cw-appliance-list',
   imports: [
     EmptyState,
+    ListFilterBar,
     MatButtonModule,
     MatFormFieldModule,
     MatIconModule,
-    MatInputModule,
     MatMenuModule,
     MatPaginatorModule,
     MatProgressBarModule,
@@ -67,36 +68,18 @@ export class ApplianceList implements AfterViewInit {
       ),
     { initialValue: [] as PropertyView[] },
   );
-  protected readonly filters = new FormGroup({
-    q: new FormControl('', { nonNullable: true }),
-    propertyId: new FormControl('', { nonNullable: true }),
-    style: new FormControl<ApplianceStyle | ''>('', { nonNullable: true }),
-    status: new FormControl<ArchiveFilter>('active', { nonNullable: true }),
-  });
-  private readonly filterValues = toSignal(this.filters.valueChanges, { initialValue: this.filters.getRawValue() });
+  protected readonly filters = new ListFilters({ q: '', propertyId: '', style: '' as ApplianceStyle | '', status: 'active' as ArchiveFilter });
   protected readonly columns = computed(() => (this.narrow() ? ['place', 'style', 'actions'] : ['place', 'style', 'model', 'installedOn', 'sensor', 'actions']));
-  protected readonly nothingYet = computed(() => {
-    const f = this.filterValues();
-    return this.table.loaded() && this.table.total() === 0 && !f.q && !f.propertyId && !f.style && f.status === 'active';
-  });
+  protected readonly nothingYet = nothingYet(this.table, this.filters);
 
   ngAfterViewInit(): void {
     this.table.connect({
       sort: this.sort(),
       paginator: this.paginator(),
-      filters: this.filters.valueChanges.pipe(debounceTime(300)),
+      filters: this.filters.changes(),
       query: (sort, paginator): ApplianceQueryInput => {
-        const { q, propertyId, style, status } = this.filters.getRawValue();
-        return {
-          q: q.trim() || undefined,
-          propertyId: propertyId || undefined,
-          style: style || undefined,
-          status,
-          sort: sortKey(sort, APPLIANCE_SORTS, 'property'),
-          direction: sortDirection(sort),
-          page: paginator.pageIndex,
-          pageSize: paginator.pageSize,
-        };
+        const { propertyId, style } = this.filters.raw();
+        return { ...this.filters.query(sort, paginator, APPLIANCE_SORTS, 'property'), propertyId: propertyId || undefined, style: style || undefined };
       },
       fetch: (query) => this.api.list(query),
       destroyRef: this.destroyRef,

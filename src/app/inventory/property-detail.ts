@@ -1,27 +1,25 @@
-import { AfterViewInit, ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, signal, viewChild } from '@angular/core';
+import { AfterViewInit, ChangeDetectionStrategy, Component, DestroyRef, inject, input, signal, viewChild } from '@angular/core';
 import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
-import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
-import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
-import { MatInputModule } from '@angular/material/input';
 import { MatMenuModule } from '@angular/material/menu';
 import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
-import { Subject, catchError, debounceTime, firstValueFrom, map, merge, of, skip, switchMap, type Observable } from 'rxjs';
+import { Subject, catchError, firstValueFrom, map, merge, of, skip, switchMap, type Observable } from 'rxjs';
 import { UNIT_SORTS, type ApplianceView, type ArchiveFilter, type PropertyView, type UnitView } from '../../../shared/api/inventory';
 import type { ApplianceStyle } from '../../../shared/domain';
 import { EmptyState } from '../shared/empty-state/empty-state';
 import { ApplianceActions } from './appliance-actions';
 import { STYLE_LABELS, placeLabel } from './labels';
 import { errorMessage } from './messages';
-import { PagedTable, sortDirection, sortKey } from './paged-table';
+import { ListFilterBar } from './list-filter-bar';
+import { ListFilters, nothingYet } from './list-filters';
+import { PagedTable } from './paged-table';
 import { PropertyApi } from './property-api';
 import { PropertyDialog } from './property-dialog';
 import { UnitApi } from './unit-api';
@@ -32,17 +30,14 @@ import { UnitDialog, type UnitDialogData } from './unit-dialog';
   selector: 'cw-property-detail',
   imports: [
     EmptyState,
+    ListFilterBar,
     MatButtonModule,
-    MatFormFieldModule,
     MatIconModule,
-    MatInputModule,
     MatMenuModule,
     MatPaginatorModule,
     MatProgressBarModule,
-    MatSelectModule,
     MatSortModule,
     MatTableModule,
-    ReactiveFormsModule,
     RouterLink,
   ],
   providers: [ApplianceActions],
@@ -68,11 +63,8 @@ export class PropertyDetail implements AfterViewInit {
   protected readonly propertyError = signal<string | null>(null);
   protected readonly table = new PagedTable<UnitView>();
   protected readonly columns = ['label', 'appliances', 'actions'];
-  protected readonly filters = new FormGroup({
-    q: new FormControl('', { nonNullable: true }),
-    status: new FormControl<ArchiveFilter>('active', { nonNullable: true }),
-  });
-  protected readonly noUnits = computed(() => this.table.loaded() && this.table.total() === 0 && !this.filters.controls.q.value && this.filters.controls.status.value === 'active');
+  protected readonly filters = new ListFilters({ q: '', status: 'active' as ArchiveFilter });
+  protected readonly noUnits = nothingYet(this.table, this.filters);
   private readonly propertyChanges = toObservable(this.propertyId);
 
   private readonly propertyReloads = new Subject<void>();
@@ -99,15 +91,8 @@ export class PropertyDetail implements AfterViewInit {
       sort: this.sort(),
       paginator: this.paginator(),
       // Another property in the same component (a link from one property to the next) starts over too.
-      filters: merge(this.filters.valueChanges.pipe(debounceTime(300)), this.propertyChanges.pipe(skip(1))),
-      query: (sort, paginator) => ({
-        q: this.filters.controls.q.value.trim() || undefined,
-        status: this.filters.controls.status.value,
-        sort: sortKey(sort, UNIT_SORTS, 'label'),
-        direction: sortDirection(sort),
-        page: paginator.pageIndex,
-        pageSize: paginator.pageSize,
-      }),
+      filters: merge(this.filters.changes(), this.propertyChanges.pipe(skip(1))),
+      query: (sort, paginator) => this.filters.query(sort, paginator, UNIT_SORTS, 'label'),
       fetch: (query) => this.units.list(this.propertyId(), query),
       destroyRef: this.destroyRef,
     });

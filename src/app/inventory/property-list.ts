@@ -1,25 +1,23 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
 import { AfterViewInit, ChangeDetectionStrategy, Component, DestroyRef, computed, inject, viewChild } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
-import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
-import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
-import { MatInputModule } from '@angular/material/input';
 import { MatMenuModule } from '@angular/material/menu';
 import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
-import { debounceTime, firstValueFrom, map } from 'rxjs';
+import { firstValueFrom, map } from 'rxjs';
 import { PROPERTY_SORTS, type ArchiveFilter, type PropertyQueryInput, type PropertyView } from '../../../shared/api/inventory';
 import { EmptyState } from '../shared/empty-state/empty-state';
 import { errorMessage } from './messages';
-import { PagedTable, sortDirection, sortKey } from './paged-table';
+import { ListFilterBar } from './list-filter-bar';
+import { ListFilters, nothingYet } from './list-filters';
+import { PagedTable } from './paged-table';
 import { PropertyApi } from './property-api';
 import { PropertyDialog } from './property-dialog';
 
@@ -30,17 +28,14 @@ export const PROPERTY_PAGE_SIZE = 25;
   selector: 'cw-property-list',
   imports: [
     EmptyState,
+    ListFilterBar,
     MatButtonModule,
-    MatFormFieldModule,
     MatIconModule,
-    MatInputModule,
     MatMenuModule,
     MatPaginatorModule,
     MatProgressBarModule,
-    MatSelectModule,
     MatSortModule,
     MatTableModule,
-    ReactiveFormsModule,
     RouterLink,
   ],
   templateUrl: './property-list.html',
@@ -59,28 +54,16 @@ export class PropertyList implements AfterViewInit {
 
   protected readonly table = new PagedTable<PropertyView>();
   protected readonly pageSize = PROPERTY_PAGE_SIZE;
-  protected readonly filters = new FormGroup({
-    q: new FormControl('', { nonNullable: true }),
-    status: new FormControl<ArchiveFilter>('active', { nonNullable: true }),
-  });
-  private readonly filterValues = toSignal(this.filters.valueChanges, { initialValue: this.filters.getRawValue() });
+  protected readonly filters = new ListFilters({ q: '', status: 'active' as ArchiveFilter });
   protected readonly columns = computed(() => (this.narrow() ? ['name', 'counts', 'actions'] : ['name', 'city', 'timeZone', 'counts', 'actions']));
-  /** Nothing at all yet (not merely nothing matching a search): say how to begin. */
-  protected readonly nothingYet = computed(() => this.table.loaded() && this.table.total() === 0 && !this.filterValues().q && this.filterValues().status === 'active');
+  protected readonly nothingYet = nothingYet(this.table, this.filters);
 
   ngAfterViewInit(): void {
     this.table.connect({
       sort: this.sort(),
       paginator: this.paginator(),
-      filters: this.filters.valueChanges.pipe(debounceTime(300)),
-      query: (sort, paginator): PropertyQueryInput => ({
-        q: this.filters.controls.q.value.trim() || undefined,
-        status: this.filters.controls.status.value,
-        sort: sortKey(sort, PROPERTY_SORTS, 'name'),
-        direction: sortDirection(sort),
-        page: paginator.pageIndex,
-        pageSize: paginator.pageSize,
-      }),
+      filters: this.filters.changes(),
+      query: (sort, paginator): PropertyQueryInput => this.filters.query(sort, paginator, PROPERTY_SORTS, 'name'),
       fetch: (query) => this.api.list(query),
       destroyRef: this.destroyRef,
     });

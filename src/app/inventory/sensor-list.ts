@@ -2,28 +2,26 @@ import { BreakpointObserver } from '@angular/cdk/layout';
 import { DatePipe } from '@angular/common';
 import { AfterViewInit, ChangeDetectionStrategy, Component, DestroyRef, computed, inject, viewChild } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
-import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
-import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
-import { MatInputModule } from '@angular/material/input';
 import { MatMenuModule } from '@angular/material/menu';
 import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
-import { debounceTime, firstValueFrom, map, type Observable } from 'rxjs';
+import { firstValueFrom, map, type Observable } from 'rxjs';
 import { SENSOR_SORTS, type ArchiveFilter, type SensorCredentials, type SensorQueryInput, type SensorView } from '../../../shared/api/inventory';
 import type { ApplianceStyle } from '../../../shared/domain';
 import { EmptyState } from '../shared/empty-state/empty-state';
 import { STYLE_LABELS, intervalLabel } from './labels';
 import { errorMessage } from './messages';
 import { MoveSensorDialog } from './move-sensor-dialog';
-import { PagedTable, sortDirection, sortKey } from './paged-table';
+import { ListFilterBar } from './list-filter-bar';
+import { ListFilters, nothingYet } from './list-filters';
+import { PagedTable } from './paged-table';
 import { SensorApi } from './sensor-api';
 import { SensorCredentialsDialog } from './sensor-credentials-dialog';
 
@@ -33,17 +31,14 @@ import { SensorCredentialsDialog } from './sensor-credentials-dialog';
   imports: [
     DatePipe,
     EmptyState,
+    ListFilterBar,
     MatButtonModule,
-    MatFormFieldModule,
     MatIconModule,
-    MatInputModule,
     MatMenuModule,
     MatPaginatorModule,
     MatProgressBarModule,
-    MatSelectModule,
     MatSortModule,
     MatTableModule,
-    ReactiveFormsModule,
     RouterLink,
   ],
   templateUrl: './sensor-list.html',
@@ -63,27 +58,16 @@ export class SensorList implements AfterViewInit {
   protected readonly styleLabel = (style: ApplianceStyle) => STYLE_LABELS[style];
   protected readonly intervalLabel = intervalLabel;
   protected readonly table = new PagedTable<SensorView>();
-  protected readonly filters = new FormGroup({
-    q: new FormControl('', { nonNullable: true }),
-    status: new FormControl<ArchiveFilter>('active', { nonNullable: true }),
-  });
-  private readonly filterValues = toSignal(this.filters.valueChanges, { initialValue: this.filters.getRawValue() });
+  protected readonly filters = new ListFilters({ q: '', status: 'active' as ArchiveFilter });
   protected readonly columns = computed(() => (this.narrow() ? ['deviceId', 'place', 'actions'] : ['deviceId', 'place', 'interval', 'lastSeenAt', 'actions']));
-  protected readonly nothingYet = computed(() => this.table.loaded() && this.table.total() === 0 && !this.filterValues().q && this.filterValues().status === 'active');
+  protected readonly nothingYet = nothingYet(this.table, this.filters);
 
   ngAfterViewInit(): void {
     this.table.connect({
       sort: this.sort(),
       paginator: this.paginator(),
-      filters: this.filters.valueChanges.pipe(debounceTime(300)),
-      query: (sort, paginator): SensorQueryInput => ({
-        q: this.filters.controls.q.value.trim() || undefined,
-        status: this.filters.controls.status.value,
-        sort: sortKey(sort, SENSOR_SORTS, 'deviceId'),
-        direction: sortDirection(sort),
-        page: paginator.pageIndex,
-        pageSize: paginator.pageSize,
-      }),
+      filters: this.filters.changes(),
+      query: (sort, paginator): SensorQueryInput => this.filters.query(sort, paginator, SENSOR_SORTS, 'deviceId'),
       fetch: (query) => this.api.list(query),
       destroyRef: this.destroyRef,
     });
