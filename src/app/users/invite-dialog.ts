@@ -1,23 +1,20 @@
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
-import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
-import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { MatSelectModule } from '@angular/material/select';
-import { catchError, firstValueFrom, of } from 'rxjs';
+import { firstValueFrom } from 'rxjs';
 import type { InvitationSummary } from '../../../shared/api/users';
 import type { Role } from '../../../shared/domain';
 import { fieldMessagesOf, messageOf } from '../auth/password-validators';
-import { ROLE_CHOICES, unitLabel } from './role-fields';
+import { RoleFieldGroup } from './role-field-group';
 import { UsersApi } from './users-api';
 
 /** Invites someone by e-mail; closes with the new invitation. */
 @Component({
   selector: 'cw-invite-dialog',
-  imports: [MatButtonModule, MatCheckboxModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule, ReactiveFormsModule],
+  imports: [MatButtonModule, MatDialogModule, MatFormFieldModule, MatInputModule, ReactiveFormsModule, RoleFieldGroup],
   templateUrl: './invite-dialog.html',
   styleUrl: './dialog.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -26,9 +23,6 @@ export class InviteDialog {
   private readonly api = inject(UsersApi);
   private readonly dialog = inject<MatDialogRef<InviteDialog, InvitationSummary>>(MatDialogRef);
 
-  protected readonly roles = ROLE_CHOICES;
-  protected readonly unitLabel = unitLabel;
-  protected readonly units = toSignal(this.api.unitOptions().pipe(catchError(() => of([]))), { initialValue: [] });
   protected readonly busy = signal(false);
   protected readonly error = signal<string | null>(null);
 
@@ -39,7 +33,6 @@ export class InviteDialog {
     unitId: new FormControl<string | null>(null),
     isAdmin: new FormControl(false, { nonNullable: true }),
   });
-  protected readonly role = toSignal(this.form.controls.role.valueChanges, { initialValue: this.form.controls.role.value });
 
   protected async submit(): Promise<void> {
     const { email, displayName, role, unitId, isAdmin } = this.form.getRawValue();
