@@ -24,6 +24,8 @@ export interface WorkOrderMatrixSeed {
   propertyId: string;
   contractorId: string;
   idleContractorId: string;
+  /** A company with nobody in it: the coverage case names it, so a declined job passed to the backup reaches no matrix person. */
+  spareContractorId: string;
   idleMemberId: string;
   /** The job on appliance A, left on site: records, reads and attachments go here. */
   onSite: { workOrderId: string; requestId: string; attachmentId: string };
@@ -97,6 +99,7 @@ export async function seedWorkOrderMatrix(world: World): Promise<WorkOrderMatrix
   const manager = await world.signedIn('adminOrg1');
   const contractorId = await contractorCompany(world, 'Matrix Cold Repair', users.contractorWithJob.id);
   const idleContractorId = await contractorCompany(world, 'Idle Fridge Works', users.contractorWithoutJob.id);
+  const spareContractorId = await one(world, `INSERT INTO contractor (organization_id, name, email, phone) VALUES ($1, 'Spare Cold Co', 'spare@example.com', '555-0144') RETURNING id`, [org1.id]);
   const tech = await world.signedIn('contractorWithJob');
 
   const onSite = await dispatchOn(manager, org1.applianceA, contractorId, 'Matrix: on site');
@@ -120,6 +123,7 @@ export async function seedWorkOrderMatrix(world: World): Promise<WorkOrderMatrix
     propertyId: org1.propertyId,
     contractorId,
     idleContractorId,
+    spareContractorId,
     idleMemberId: users.contractorWithoutJob.id,
     onSite: { ...onSite, attachmentId },
     dispatched,
@@ -176,7 +180,7 @@ export function workOrderMatrixCases(seed: WorkOrderMatrixSeed): Record<string, 
     'POST /api/contractors/:contractorId/members': { params: { contractorId: seed.idleContractorId }, body: { userId: seed.idleMemberId }, target: { organizationId: org }, ok: 200 },
     'DELETE /api/contractors/:contractorId/members/:userId': { params: { contractorId: seed.contractorId, userId: seed.idleMemberId }, target: { organizationId: org }, ok: 200 },
     'GET /api/coverage': { ok: 200 },
-    'PUT /api/coverage': { body: { propertyId: seed.propertyId, applianceStyle: null, rank: 'backup', contractorId: seed.idleContractorId }, target: { organizationId: org }, ok: 200 },
+    'PUT /api/coverage': { body: { propertyId: seed.propertyId, applianceStyle: null, rank: 'backup', contractorId: seed.spareContractorId }, target: { organizationId: org }, ok: 200 },
     'GET /api/org-settings': { ok: 200 },
     'PATCH /api/org-settings': { body: { dispatchHoldMinutes: 0 }, ok: 200 },
     'GET /api/tenant/home': { ok: 200 },

@@ -15,6 +15,9 @@ import { STYLE_LABELS } from '../fleet/appliance-words';
 export class PastLifeTable {
   readonly rows = input.required<readonly PastLifeAppliance[]>();
 
-  protected readonly styleLabels = STYLE_LABELS;
+  /** A method, not an index in the template: mat-table's row context is untyped. */
+  protected styleLabel(row: PastLifeAppliance): string {
+    return STYLE_LABELS[row.style];
+  }
   protected readonly columns = ['appliance', 'property', 'installed', 'age', 'incidents'];
 }
