@@ -25,7 +25,7 @@ function accountLines(list) {
   const lines = ['  Demo sign-ins (e-mail, password), and what to look at first:'];
   for (const account of list) {
     const who = `${account.role}${account.isAdmin ? ' (admin)' : ''}`;
-    lines.push(`    ${who.padEnd(16)} ${account.email.padEnd(emailWidth)}  ${account.password.padEnd(passwordWidth)}`);
+    lines.push(`    ${who.padEnd(16)} ${account.email.padEnd(emailWidth)}  ${account.password.padEnd(passwordWidth)}`.trimEnd());
     if (account.lookFirst) lines.push(`    ${''.padEnd(16)} → ${account.lookFirst}`);
   }
   return [...lines, ''];
@@ -36,10 +36,8 @@ function storylineLines(storyline, options) {
   if (options.calm) return ['  Calm run: no scripted faults.', ''];
   const speed = options.speed ?? DEFAULT_STORYLINE_SPEED;
   const lines = [`  The storyline (simulated time at ${speed}×; it catches up with the clock after about ${Math.ceil((STORYLINE_REPLAY_HOURS * 60) / Math.max(1, speed - 1))} min):`];
-  for (const step of storyline.STORYLINE) {
-    const minutes = step.startH <= 0 ? 'under way' : `from about minute ${Math.max(1, Math.round((step.startH * 60) / speed))}`;
-    lines.push(`    ${minutes.padEnd(22)} ${step.shows}`);
-  }
+  const bySeen = [...storyline.STORYLINE].sort((a, b) => a.seenH - b.seenH);
+  for (const step of bySeen) lines.push(`    ${`about minute ${Math.max(1, Math.round((step.seenH * 60) / speed))}`.padEnd(17)} ${step.shows}`);
   lines.push('    While the replay catches up, tiles show "silent": the newest readings are hours old until then.', '');
   return lines;
 }

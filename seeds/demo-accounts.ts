@@ -26,7 +26,7 @@ export const DEMO_ACCOUNTS: readonly DemoAccount[] = [
     displayName: 'Morgan Ashby',
     phone: '555-0142',
     note: 'administrator: also manages users',
-    lookFirst: 'People: invite a tenant (the invitation lands in the fake inbox); Reports: costs and repairs of the last months',
+    lookFirst: 'People: invite a tenant (the invitation lands in the fake inbox); Reports: repair costs of the last three months',
   },
   {
     role: 'manager',
@@ -36,7 +36,7 @@ export const DEMO_ACCOUNTS: readonly DemoAccount[] = [
     displayName: 'Dana Whitcombe',
     phone: '555-0143',
     note: 'property manager',
-    lookFirst: 'Fleet: watch 3B at The Ostler Building drift and 304 at Harrowgate Commons turn warm; Requests: the urgent work order',
+    lookFirst: 'Fleet: 304 at Harrowgate Commons turns warm, 3B at The Ostler Building drifts; Work orders: the urgent job; Incidents: the power loss at Bramblewick Row',
   },
   {
     role: 'contractor',
@@ -46,7 +46,7 @@ export const DEMO_ACCOUNTS: readonly DemoAccount[] = [
     displayName: 'Eli Rook (Rook Appliance Repair, demo)',
     phone: '555-0188',
     note: 'repair technician',
-    lookFirst: 'Jobs: accept the urgent job at Harrowgate Commons 304, record the fan motor, complete it',
+    lookFirst: 'My jobs: accept the urgent job at 304, Harrowgate Commons, record the fan motor and labour, complete it',
   },
   {
     role: 'tenant',
@@ -56,6 +56,6 @@ export const DEMO_ACCOUNTS: readonly DemoAccount[] = [
     displayName: 'Jun Okafor',
     phone: '555-0117',
     note: 'tenant of one unit',
-    lookFirst: 'Home: the status of unit 304 and what to do with the food while the freezer is warm',
+    lookFirst: 'My refrigerator: the status of unit 304, the repair under way and what to do with the food',
   },
 ];

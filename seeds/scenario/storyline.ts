@@ -53,6 +53,11 @@ export interface StorylineStep {
   probe?: Probe;
   /** What the visitor should see, for the banner and the report. */
   shows: string;
+  /**
+   * Hours after the live start at which the monitor concluded it in a run of the whole
+   * stack (the defrost trend moves by a few hours with the time of day the history ends).
+   */
+  seenH: number;
 }
 
 /**
@@ -66,10 +71,10 @@ export interface StorylineStep {
 export const DEFROST_FAILED_BEFORE_LIVE_H = 174;
 
 export const STORYLINE: readonly StorylineStep[] = [
-  { applianceKey: 'p3/3B/1', fault: 'defrost-system', startH: -DEFROST_FAILED_BEFORE_LIVE_H, forH: null, shows: 'a warming trend in the fresh-food section of 3B at The Ostler Building, then too warm' },
-  { applianceKey: 'p1/304/1', fault: 'evaporator-fan', startH: 0.5, forH: null, shows: 'the freezer of 304 at Harrowgate Commons warms: an urgent work order for the primary contractor' },
-  { applianceKey: 'p1/502/1', fault: 'sensor-disconnected', startH: 3.5, forH: 5, probe: 'freezer', shows: 'the freezer probe of 502 at Harrowgate Commons reads −127 °C: a sensor fault, no technician' },
-  { propertyKey: 'p2', fault: 'power-loss', startH: 7, forH: 3, shows: 'every appliance at Bramblewick Row warms together: one power-loss request for the property' },
+  { applianceKey: 'p3/3B/1', fault: 'defrost-system', startH: -DEFROST_FAILED_BEFORE_LIVE_H, forH: null, seenH: 7, shows: 'a warming trend at 3B, The Ostler Building (food at risk only two days later): a work order for the defrost system' },
+  { applianceKey: 'p1/304/1', fault: 'evaporator-fan', startH: 0.5, forH: null, seenH: 3.5, shows: 'the freezer of 304, Harrowgate Commons (the demo tenant) too warm: an urgent work order for Rook Appliance Repair' },
+  { applianceKey: 'p1/502/1', fault: 'sensor-disconnected', startH: 3.5, forH: 5, probe: 'freezer', seenH: 3.8, shows: 'the freezer probe of 502, Harrowgate Commons reads −127 °C: a sensor fault, no technician' },
+  { propertyKey: 'p2', fault: 'power-loss', startH: 7, forH: 3, seenH: 10.2, shows: 'Bramblewick Row loses power for three hours: one power-loss request for the property, no job per unit' },
 ];
 
 export function storylineWindowMs(liveStartMs: number, step: StorylineStep): { startMs: number; endMs: number | null } {
