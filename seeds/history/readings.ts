@@ -11,8 +11,8 @@ import { monthStartMs, nextMonthStartMs, partitionName, PARTITIONED_TABLES } fro
 import { PROBE_ERROR_VALUES, type ProbeErrorFlag } from '../../shared/telemetry';
 import type { SimSample } from '../../simulator/model';
 
-/** Rows per INSERT: large enough to amortise the round trip, small enough for the parameter arrays. */
-const CHUNK_ROWS = 12_000;
+/** Rows per statement: fewer, larger statements cost the database less (21 s of backend CPU for the demo at 40,000, 24 s at 12,000). */
+const CHUNK_ROWS = 40_000;
 
 const roundC = (valueC: number) => Math.round(valueC * 10_000) / 10_000;
 
