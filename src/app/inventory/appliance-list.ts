@@ -1,5 +1,5 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
-import { AfterViewInit, ChangeDetectionStrategy, Component, DestroyRef, computed, inject, viewChild } from '@angular/core';
+import { AfterViewInit, ChangeDetectionStrategy, Component, computed, inject, viewChild } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -7,13 +7,12 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatMenuModule } from '@angular/material/menu';
 import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
 import { catchError, map, of } from 'rxjs';
-import { APPLIANCE_SORTS, type ApplianceQueryInput, type ApplianceView, type ArchiveFilter, type PropertyView } from '../../../shared/api/inventory';
+import { APPLIANCE_SORTS, type ApplianceView, type ArchiveFilter, type PropertyView } from '../../../shared/api/inventory';
 import type { ApplianceStyle } from '../../../shared/domain';
 import { EmptyState } from '../shared/empty-state/empty-state';
 import { ApplianceActions } from './appliance-actions';
@@ -21,6 +20,7 @@ import { ApplianceInventoryApi } from './appliance-inventory-api';
 import { STYLE_CHOICES, STYLE_LABELS } from './labels';
 import { ListFilterBar } from './list-filter-bar';
 import { ListFilters, nothingYet } from './list-filters';
+import { ListStatus } from './list-status';
 import { PagedTable } from './paged-table';
 import { PropertyApi } from './property-api';
 
@@ -30,12 +30,12 @@ import { PropertyApi } from './property-api';
   imports: [
     EmptyState,
     ListFilterBar,
+    ListStatus,
     MatButtonModule,
     MatFormFieldModule,
     MatIconModule,
     MatMenuModule,
     MatPaginatorModule,
-    MatProgressBarModule,
     MatSelectModule,
     MatSortModule,
     MatTableModule,
@@ -49,7 +49,6 @@ import { PropertyApi } from './property-api';
 })
 export class ApplianceList implements AfterViewInit {
   private readonly api = inject(ApplianceInventoryApi);
-  private readonly destroyRef = inject(DestroyRef);
   private readonly narrow = toSignal(inject(BreakpointObserver).observe('(max-width: 719px)').pipe(map((state) => state.matches)), { initialValue: false });
   protected readonly actions = inject(ApplianceActions);
 
@@ -73,16 +72,15 @@ export class ApplianceList implements AfterViewInit {
   protected readonly nothingYet = nothingYet(this.table, this.filters);
 
   ngAfterViewInit(): void {
-    this.table.connect({
+    this.filters.connect(this.table, {
       sort: this.sort(),
       paginator: this.paginator(),
-      filters: this.filters.changes(),
-      query: (sort, paginator): ApplianceQueryInput => {
+      sortKeys: APPLIANCE_SORTS,
+      defaultSort: 'property',
+      fetch: (query) => {
         const { propertyId, style } = this.filters.raw();
-        return { ...this.filters.query(sort, paginator, APPLIANCE_SORTS, 'property'), propertyId: propertyId || undefined, style: style || undefined };
+        return this.api.list({ ...query, propertyId: propertyId || undefined, style: style || undefined });
       },
-      fetch: (query) => this.api.list(query),
-      destroyRef: this.destroyRef,
     });
   }
 

@@ -7,7 +7,6 @@ import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatMenuModule } from '@angular/material/menu';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTableModule } from '@angular/material/table';
@@ -19,12 +18,13 @@ import { EmptyState } from '../shared/empty-state/empty-state';
 import { ContractorApi } from './contractor-api';
 import { ContractorDialog } from './contractor-dialog';
 import { ContractorMembersDialog } from './contractor-members-dialog';
+import { ListStatus } from './list-status';
 import { errorMessage } from './messages';
 
 /** The organization's contractor companies with their contact and people; add, edit, archive. */
 @Component({
   selector: 'cw-contractor-list',
-  imports: [EmptyState, MatButtonModule, MatFormFieldModule, MatIconModule, MatMenuModule, MatProgressBarModule, MatSelectModule, MatTableModule, ReactiveFormsModule, RouterLink],
+  imports: [EmptyState, ListStatus, MatButtonModule, MatFormFieldModule, MatIconModule, MatMenuModule, MatSelectModule, MatTableModule, ReactiveFormsModule, RouterLink],
   templateUrl: './contractor-list.html',
   styleUrls: ['./list.scss', './contractor-list.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -7,7 +7,6 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { NgTemplateOutlet } from '@angular/common';
 import { RouterLink } from '@angular/router';
@@ -19,6 +18,7 @@ import { EmptyState } from '../shared/empty-state/empty-state';
 import { ContractorApi } from './contractor-api';
 import { CoverageCell, type ContractorOption, type SlotPick } from './coverage-cell';
 import { CoverageGrid, STYLE_COLUMNS, slotKey } from './coverage-grid';
+import { ListStatus } from './list-status';
 import { errorMessage } from './messages';
 import { PropertyApi } from './property-api';
 
@@ -30,7 +30,7 @@ export const COVERAGE_PAGE_SIZE = 25;
  */
 @Component({
   selector: 'cw-coverage-editor',
-  imports: [CoverageCell, EmptyState, NgTemplateOutlet, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatPaginatorModule, MatProgressBarModule, ReactiveFormsModule, RouterLink],
+  imports: [CoverageCell, EmptyState, ListStatus, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatPaginatorModule, NgTemplateOutlet, ReactiveFormsModule, RouterLink],
   templateUrl: './coverage-editor.html',
   styleUrls: ['./list.scss', './coverage-editor.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,

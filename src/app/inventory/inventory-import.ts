@@ -11,6 +11,7 @@ import { IMPORT_COLUMNS, IMPORT_MAX_BYTES, IMPORT_MAX_ROWS, type ImportAction, t
 import type { ApplianceStyle } from '../../../shared/domain';
 import { InventoryImportApi } from './inventory-import-api';
 import { STYLE_LABELS, countOf, inventoryCounts } from './labels';
+import { ListStatus } from './list-status';
 import { capitalise, errorMessage } from './messages';
 
 export const IMPORT_POLL_MS = 400;
@@ -31,7 +32,7 @@ const ACTION_WORDS: Record<ImportAction, string> = { create: 'new', existing: 'e
  */
 @Component({
   selector: 'cw-inventory-import',
-  imports: [DecimalPipe, MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule, RouterLink],
+  imports: [DecimalPipe, ListStatus, MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule, RouterLink],
   templateUrl: './inventory-import.html',
   styleUrls: ['./list.scss', './inventory-import.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -1,10 +1,10 @@
-import { computed, type Signal } from '@angular/core';
+import { DestroyRef, computed, inject, type Signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup } from '@angular/forms';
 import type { MatPaginator } from '@angular/material/paginator';
 import type { MatSort } from '@angular/material/sort';
-import { debounceTime, map, type Observable } from 'rxjs';
-import type { ArchiveFilter } from '../../../shared/api/inventory';
+import { debounceTime, map, merge, type Observable } from 'rxjs';
+import type { ArchiveFilter, Page } from '../../../shared/api/inventory';
 import { SEARCH_DEBOUNCE_MS } from '../shared/data-table/filter-bar';
 import { type PagedTable, sortDirection, sortKey } from './paged-table';
 
@@ -26,6 +26,17 @@ export interface ListQuery<K extends string> {
   pageSize: number;
 }
 
+/** How a list's table fetches: its sort and paginator, the server's sort keys, the API call. */
+export interface FilteredListSource<K extends string, T> {
+  sort: MatSort;
+  paginator: MatPaginator;
+  sortKeys: readonly K[];
+  defaultSort: K;
+  fetch(query: ListQuery<K>): Observable<Page<T>>;
+  /** Other events that start again from the first page (another property in the same view). */
+  restarts?: Observable<unknown>;
+}
+
 /**
  * The filter form of an inventory list with its values as a signal. Create it in a
  * field initialiser (it reads the form through toSignal).
@@ -35,6 +46,8 @@ export class ListFilters<F extends ArchiveListFilters> {
   readonly values: Signal<F>;
   /** Every filter at its first value: an empty answer then means there is nothing yet. */
   readonly atDefaults: Signal<boolean>;
+
+  private readonly destroyRef = inject(DestroyRef);
 
   constructor(private readonly defaults: F) {
     const controls = Object.fromEntries(Object.entries(defaults).map(([key, value]) => [key, new FormControl(value, { nonNullable: true })]));
@@ -54,6 +67,18 @@ export class ListFilters<F extends ArchiveListFilters> {
   /** The form's current values (read when a fetch starts, not from the debounced signal). */
   raw(): F {
     return this.form.getRawValue() as F;
+  }
+
+  /** Wires a list's table to these filters: a change fetches the first page again. */
+  connect<K extends string, T>(table: PagedTable<T>, source: FilteredListSource<K, T>): void {
+    table.connect({
+      sort: source.sort,
+      paginator: source.paginator,
+      filters: source.restarts ? merge(this.changes(), source.restarts) : this.changes(),
+      query: (sort, paginator) => this.query(sort, paginator, source.sortKeys, source.defaultSort),
+      fetch: (query) => source.fetch(query),
+      destroyRef: this.destroyRef,
+    });
   }
 
   /** The search, archive filter, sort and page of a list's query; a list adds its own filters. */

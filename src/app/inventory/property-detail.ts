@@ -1,4 +1,4 @@
-import { AfterViewInit, ChangeDetectionStrategy, Component, DestroyRef, inject, input, signal, viewChild } from '@angular/core';
+import { AfterViewInit, ChangeDetectionStrategy, Component, inject, input, signal, viewChild } from '@angular/core';
 import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
@@ -16,6 +16,7 @@ import type { ApplianceStyle } from '../../../shared/domain';
 import { EmptyState } from '../shared/empty-state/empty-state';
 import { ApplianceActions } from './appliance-actions';
 import { STYLE_LABELS, placeLabel } from './labels';
+import { ListStatus } from './list-status';
 import { errorMessage } from './messages';
 import { ListFilterBar } from './list-filter-bar';
 import { ListFilters, nothingYet } from './list-filters';
@@ -31,6 +32,7 @@ import { UnitDialog, type UnitDialogData } from './unit-dialog';
   imports: [
     EmptyState,
     ListFilterBar,
+    ListStatus,
     MatButtonModule,
     MatIconModule,
     MatMenuModule,
@@ -50,7 +52,6 @@ export class PropertyDetail implements AfterViewInit {
   private readonly units = inject(UnitApi);
   private readonly dialog = inject(MatDialog);
   private readonly snackBar = inject(MatSnackBar);
-  private readonly destroyRef = inject(DestroyRef);
   protected readonly appliances = inject(ApplianceActions);
 
   /** From the route (`properties/:propertyId`). */
@@ -87,14 +88,14 @@ export class PropertyDetail implements AfterViewInit {
   }
 
   ngAfterViewInit(): void {
-    this.table.connect({
+    this.filters.connect(this.table, {
       sort: this.sort(),
       paginator: this.paginator(),
-      // Another property in the same component (a link from one property to the next) starts over too.
-      filters: merge(this.filters.changes(), this.propertyChanges.pipe(skip(1))),
-      query: (sort, paginator) => this.filters.query(sort, paginator, UNIT_SORTS, 'label'),
+      sortKeys: UNIT_SORTS,
+      defaultSort: 'label',
       fetch: (query) => this.units.list(this.propertyId(), query),
-      destroyRef: this.destroyRef,
+      // Another property in the same component (a link from one property to the next) starts over too.
+      restarts: this.propertyChanges.pipe(skip(1)),
     });
   }
 

@@ -1,19 +1,19 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
-import { AfterViewInit, ChangeDetectionStrategy, Component, DestroyRef, computed, inject, viewChild } from '@angular/core';
+import { AfterViewInit, ChangeDetectionStrategy, Component, computed, inject, viewChild } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { MatMenuModule } from '@angular/material/menu';
 import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
 import { firstValueFrom, map } from 'rxjs';
-import { PROPERTY_SORTS, type ArchiveFilter, type PropertyQueryInput, type PropertyView } from '../../../shared/api/inventory';
+import { PROPERTY_SORTS, type ArchiveFilter, type PropertyView } from '../../../shared/api/inventory';
 import { EmptyState } from '../shared/empty-state/empty-state';
+import { ListStatus } from './list-status';
 import { errorMessage } from './messages';
 import { ListFilterBar } from './list-filter-bar';
 import { ListFilters, nothingYet } from './list-filters';
@@ -29,11 +29,11 @@ export const PROPERTY_PAGE_SIZE = 25;
   imports: [
     EmptyState,
     ListFilterBar,
+    ListStatus,
     MatButtonModule,
     MatIconModule,
     MatMenuModule,
     MatPaginatorModule,
-    MatProgressBarModule,
     MatSortModule,
     MatTableModule,
     RouterLink,
@@ -46,7 +46,6 @@ export class PropertyList implements AfterViewInit {
   private readonly api = inject(PropertyApi);
   private readonly dialog = inject(MatDialog);
   private readonly snackBar = inject(MatSnackBar);
-  private readonly destroyRef = inject(DestroyRef);
   private readonly narrow = toSignal(inject(BreakpointObserver).observe('(max-width: 719px)').pipe(map((state) => state.matches)), { initialValue: false });
 
   readonly sort = viewChild.required(MatSort);
@@ -59,14 +58,7 @@ export class PropertyList implements AfterViewInit {
   protected readonly nothingYet = nothingYet(this.table, this.filters);
 
   ngAfterViewInit(): void {
-    this.table.connect({
-      sort: this.sort(),
-      paginator: this.paginator(),
-      filters: this.filters.changes(),
-      query: (sort, paginator): PropertyQueryInput => this.filters.query(sort, paginator, PROPERTY_SORTS, 'name'),
-      fetch: (query) => this.api.list(query),
-      destroyRef: this.destroyRef,
-    });
+    this.filters.connect(this.table, { sort: this.sort(), paginator: this.paginator(), sortKeys: PROPERTY_SORTS, defaultSort: 'name', fetch: (query) => this.api.list(query) });
   }
 
   protected add(): void {

@@ -1,22 +1,22 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
 import { DatePipe } from '@angular/common';
-import { AfterViewInit, ChangeDetectionStrategy, Component, DestroyRef, computed, inject, viewChild } from '@angular/core';
+import { AfterViewInit, ChangeDetectionStrategy, Component, computed, inject, viewChild } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { MatMenuModule } from '@angular/material/menu';
 import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
 import { firstValueFrom, map, type Observable } from 'rxjs';
-import { SENSOR_SORTS, type ArchiveFilter, type SensorCredentials, type SensorQueryInput, type SensorView } from '../../../shared/api/inventory';
+import { SENSOR_SORTS, type ArchiveFilter, type SensorCredentials, type SensorView } from '../../../shared/api/inventory';
 import type { ApplianceStyle } from '../../../shared/domain';
 import { EmptyState } from '../shared/empty-state/empty-state';
 import { STYLE_LABELS, intervalLabel } from './labels';
+import { ListStatus } from './list-status';
 import { errorMessage } from './messages';
 import { MoveSensorDialog } from './move-sensor-dialog';
 import { ListFilterBar } from './list-filter-bar';
@@ -32,11 +32,11 @@ import { SensorCredentialsDialog } from './sensor-credentials-dialog';
     DatePipe,
     EmptyState,
     ListFilterBar,
+    ListStatus,
     MatButtonModule,
     MatIconModule,
     MatMenuModule,
     MatPaginatorModule,
-    MatProgressBarModule,
     MatSortModule,
     MatTableModule,
     RouterLink,
@@ -49,7 +49,6 @@ export class SensorList implements AfterViewInit {
   private readonly api = inject(SensorApi);
   private readonly dialog = inject(MatDialog);
   private readonly snackBar = inject(MatSnackBar);
-  private readonly destroyRef = inject(DestroyRef);
   private readonly narrow = toSignal(inject(BreakpointObserver).observe('(max-width: 719px)').pipe(map((state) => state.matches)), { initialValue: false });
 
   readonly sort = viewChild.required(MatSort);
@@ -63,14 +62,7 @@ export class SensorList implements AfterViewInit {
   protected readonly nothingYet = nothingYet(this.table, this.filters);
 
   ngAfterViewInit(): void {
-    this.table.connect({
-      sort: this.sort(),
-      paginator: this.paginator(),
-      filters: this.filters.changes(),
-      query: (sort, paginator): SensorQueryInput => this.filters.query(sort, paginator, SENSOR_SORTS, 'deviceId'),
-      fetch: (query) => this.api.list(query),
-      destroyRef: this.destroyRef,
-    });
+    this.filters.connect(this.table, { sort: this.sort(), paginator: this.paginator(), sortKeys: SENSOR_SORTS, defaultSort: 'deviceId', fetch: (query) => this.api.list(query) });
   }
 
   protected async newSecret(sensor: SensorView): Promise<void> {
