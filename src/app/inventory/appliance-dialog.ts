@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators, type AbstractControl, type ValidationErrors } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
@@ -10,6 +10,7 @@ import { warrantyBeforeInstall, type ApplianceView } from '../../../shared/api/i
 import type { ApplianceStyle } from '../../../shared/domain';
 import { ApplianceInventoryApi } from './appliance-inventory-api';
 import { STYLE_CHOICES } from './labels';
+import { DialogSubmit } from './dialog-submit';
 import { errorMessage, fieldErrors } from './messages';
 
 export interface ApplianceDialogData {
@@ -39,8 +40,9 @@ export class ApplianceDialog {
 
   protected readonly styles = STYLE_CHOICES;
   protected readonly today = new Date().toISOString().slice(0, 10);
-  protected readonly busy = signal(false);
-  protected readonly error = signal<string | null>(null);
+  private readonly submitting = new DialogSubmit();
+  protected readonly busy = this.submitting.busy;
+  protected readonly error = this.submitting.error;
   protected readonly form = new FormGroup(
     {
       style: new FormControl<ApplianceStyle | null>(this.data.appliance?.style ?? null, { validators: [Validators.required] }),
@@ -52,29 +54,23 @@ export class ApplianceDialog {
     { validators: datesInOrder },
   );
 
-  protected async submit(): Promise<void> {
-    if (this.form.invalid || this.busy()) {
-      this.form.markAllAsTouched();
-      return;
-    }
-    this.busy.set(true);
-    this.error.set(null);
-    const values = this.form.getRawValue();
-    const fields = {
-      style: values.style as ApplianceStyle,
-      model: values.model.trim(),
-      serial: values.serial.trim(),
-      installedOn: values.installedOn || null,
-      warrantyEndsOn: values.warrantyEndsOn || null,
-    };
-    try {
-      const current = this.data.appliance;
-      const saved = current ? await firstValueFrom(this.api.change(current.id, fields)) : await firstValueFrom(this.api.create({ unitId: this.data.unitId, ...fields }));
-      this.dialog.close(saved);
-    } catch (error) {
-      this.error.set(Object.values(fieldErrors(error))[0] ?? errorMessage(error));
-    } finally {
-      this.busy.set(false);
-    }
+  protected submit(): Promise<void> {
+    return this.submitting.run(
+      this.form,
+      async () => {
+        const values = this.form.getRawValue();
+        const fields = {
+          style: values.style as ApplianceStyle,
+          model: values.model.trim(),
+          serial: values.serial.trim(),
+          installedOn: values.installedOn || null,
+          warrantyEndsOn: values.warrantyEndsOn || null,
+        };
+        const current = this.data.appliance;
+        const saved = current ? await firstValueFrom(this.api.change(current.id, fields)) : await firstValueFrom(this.api.create({ unitId: this.data.unitId, ...fields }));
+        this.dialog.close(saved);
+      },
+      (error) => Object.values(fieldErrors(error))[0] ?? errorMessage(error),
+    );
   }
 }

@@ -7,6 +7,7 @@ import { MatInputModule } from '@angular/material/input';
 import { firstValueFrom } from 'rxjs';
 import type { ContractorView, UpdateContractorRequest } from '../../../shared/api/work-orders';
 import { ContractorApi } from './contractor-api';
+import { DialogSubmit } from './dialog-submit';
 import { errorMessage, fieldErrors } from './messages';
 
 type FieldName = 'name' | 'email' | 'phone';
@@ -24,8 +25,9 @@ export class ContractorDialog {
   private readonly dialog = inject<MatDialogRef<ContractorDialog, ContractorView>>(MatDialogRef);
   protected readonly contractor = inject<ContractorView | null>(MAT_DIALOG_DATA);
 
-  protected readonly busy = signal(false);
-  protected readonly error = signal<string | null>(null);
+  private readonly submitting = new DialogSubmit();
+  protected readonly busy = this.submitting.busy;
+  protected readonly error = this.submitting.error;
   protected readonly serverErrors = signal<Partial<Record<FieldName, string>>>({});
   protected readonly form = new FormGroup({
     name: new FormControl(this.contractor?.name ?? '', { nonNullable: true, validators: [Validators.required, Validators.maxLength(120)] }),
@@ -33,25 +35,24 @@ export class ContractorDialog {
     phone: new FormControl(this.contractor?.phone ?? '', { nonNullable: true, validators: [Validators.maxLength(40)] }),
   });
 
-  protected async submit(): Promise<void> {
-    if (this.form.invalid || this.busy()) {
-      this.form.markAllAsTouched();
-      return;
-    }
-    this.busy.set(true);
-    this.error.set(null);
-    this.serverErrors.set({});
-    const values = { name: this.form.controls.name.value.trim(), email: this.form.controls.email.value.trim(), phone: this.form.controls.phone.value.trim() };
-    try {
-      const saved = this.contractor ? await firstValueFrom(this.api.change(this.contractor.id, changedFields(this.contractor, values))) : await firstValueFrom(this.api.create(values));
-      this.dialog.close(saved);
-    } catch (error) {
-      const fields = fieldErrors(error) as Partial<Record<FieldName, string>>;
-      this.serverErrors.set(fields);
-      this.error.set(Object.keys(fields).length ? 'Check the fields marked below.' : errorMessage(error));
-    } finally {
-      this.busy.set(false);
-    }
+  protected submit(): Promise<void> {
+    return this.submitting.run(
+      this.form,
+      async () => {
+        this.serverErrors.set({});
+        const values = { name: this.form.controls.name.value.trim(), email: this.form.controls.email.value.trim(), phone: this.form.controls.phone.value.trim() };
+        const saved = this.contractor ? await firstValueFrom(this.api.change(this.contractor.id, changedFields(this.contractor, values))) : await firstValueFrom(this.api.create(values));
+        this.dialog.close(saved);
+      },
+      (error) => this.describe(error),
+    );
+  }
+
+  /** Field errors go beside their fields; the message says to look there. */
+  private describe(error: unknown): string {
+    const fields = fieldErrors(error) as Partial<Record<FieldName, string>>;
+    this.serverErrors.set(fields);
+    return Object.keys(fields).length ? 'Check the fields marked below.' : errorMessage(error);
   }
 }
 

@@ -11,6 +11,7 @@ import { SENSOR_INTERVAL_DEFAULT_SECONDS, type ApplianceView, type SensorCredent
 import { DEVICE_ID_PATTERN } from '../../../shared/telemetry';
 import { ApplianceInventoryApi } from './appliance-inventory-api';
 import { STYLE_LABELS, placeLabel } from './labels';
+import { DialogSubmit } from './dialog-submit';
 import { errorMessage, fieldErrors } from './messages';
 import { SensorCredentialsPanel } from './sensor-credentials-panel';
 
@@ -38,8 +39,9 @@ export class PairSensorDialog {
   protected readonly place = placeLabel(this.appliance.propertyName, this.appliance.unitLabel);
   protected readonly style = STYLE_LABELS[this.appliance.style];
   protected readonly intervals = INTERVAL_CHOICES;
-  protected readonly busy = signal(false);
-  protected readonly error = signal<string | null>(null);
+  private readonly submitting = new DialogSubmit();
+  protected readonly busy = this.submitting.busy;
+  protected readonly error = this.submitting.error;
   protected readonly credentials = signal<SensorCredentials | null>(null);
   protected readonly form = new FormGroup({
     deviceId: new FormControl('', { nonNullable: true, validators: [Validators.pattern(DEVICE_ID_PATTERN)] }),
@@ -47,23 +49,17 @@ export class PairSensorDialog {
     replace: new FormControl(false, { nonNullable: true, validators: this.appliance.sensor ? [Validators.requiredTrue] : [] }),
   });
 
-  protected async submit(): Promise<void> {
-    if (this.form.invalid || this.busy()) {
-      this.form.markAllAsTouched();
-      return;
-    }
-    this.busy.set(true);
-    this.error.set(null);
-    const { deviceId, intervalSeconds, replace } = this.form.getRawValue();
-    try {
-      const credentials = await firstValueFrom(this.api.pairSensor(this.appliance.id, { deviceId: deviceId.trim() || undefined, intervalSeconds, replace }));
-      this.credentials.set(credentials);
-      this.dialog.disableClose = true; // the secret must not vanish with a stray click outside
-    } catch (error) {
-      this.error.set(fieldErrors(error)['deviceId'] ?? errorMessage(error));
-    } finally {
-      this.busy.set(false);
-    }
+  protected submit(): Promise<void> {
+    return this.submitting.run(
+      this.form,
+      async () => {
+        const { deviceId, intervalSeconds, replace } = this.form.getRawValue();
+        const credentials = await firstValueFrom(this.api.pairSensor(this.appliance.id, { deviceId: deviceId.trim() || undefined, intervalSeconds, replace }));
+        this.credentials.set(credentials);
+        this.dialog.disableClose = true; // the secret must not vanish with a stray click outside
+      },
+      (error) => fieldErrors(error)['deviceId'] ?? errorMessage(error),
+    );
   }
 
   protected done(): void {

@@ -8,6 +8,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { firstValueFrom } from 'rxjs';
 import { canonicalTimeZone, type PropertyChange, type PropertyView } from '../../../shared/api/inventory';
+import { DialogSubmit } from './dialog-submit';
 import { errorMessage, fieldErrors } from './messages';
 import { PropertyApi } from './property-api';
 
@@ -33,8 +34,9 @@ export class PropertyDialog {
   private readonly dialog = inject<MatDialogRef<PropertyDialog, PropertyView>>(MatDialogRef);
   protected readonly property = inject<PropertyView | null>(MAT_DIALOG_DATA);
 
-  protected readonly busy = signal(false);
-  protected readonly error = signal<string | null>(null);
+  private readonly submitting = new DialogSubmit();
+  protected readonly busy = this.submitting.busy;
+  protected readonly error = this.submitting.error;
   protected readonly serverErrors = signal<Partial<Record<FieldName, string>>>({});
   protected readonly form = new FormGroup({
     name: new FormControl(this.property?.name ?? '', { nonNullable: true, validators: [Validators.required, Validators.maxLength(120)] }),
@@ -53,26 +55,25 @@ export class PropertyDialog {
     return (text ? TIME_ZONES.filter((zone) => zone.toLowerCase().includes(text)) : TIME_ZONES).slice(0, 30);
   });
 
-  protected async submit(): Promise<void> {
-    if (this.form.invalid || this.busy()) {
-      this.form.markAllAsTouched();
-      return;
-    }
-    this.busy.set(true);
-    this.error.set(null);
-    this.serverErrors.set({});
-    try {
-      const values = this.form.getRawValue();
-      const input = { ...values, addressLine2: values.addressLine2.trim() || null, country: values.country.toUpperCase() };
-      const saved = this.property ? await firstValueFrom(this.api.change(this.property.id, changedFields(this.property, input))) : await firstValueFrom(this.api.create(input));
-      this.dialog.close(saved);
-    } catch (error) {
-      const fields = fieldErrors(error) as Partial<Record<FieldName, string>>;
-      this.serverErrors.set(fields);
-      this.error.set(Object.keys(fields).length ? 'Check the fields marked below.' : errorMessage(error));
-    } finally {
-      this.busy.set(false);
-    }
+  protected submit(): Promise<void> {
+    return this.submitting.run(
+      this.form,
+      async () => {
+        this.serverErrors.set({});
+        const values = this.form.getRawValue();
+        const input = { ...values, addressLine2: values.addressLine2.trim() || null, country: values.country.toUpperCase() };
+        const saved = this.property ? await firstValueFrom(this.api.change(this.property.id, changedFields(this.property, input))) : await firstValueFrom(this.api.create(input));
+        this.dialog.close(saved);
+      },
+      (error) => this.describe(error),
+    );
+  }
+
+  /** Field errors go beside their fields; the message says to look there. */
+  private describe(error: unknown): string {
+    const fields = fieldErrors(error) as Partial<Record<FieldName, string>>;
+    this.serverErrors.set(fields);
+    return Object.keys(fields).length ? 'Check the fields marked below.' : errorMessage(error);
   }
 }
 
