@@ -7,7 +7,7 @@ import type { Logger } from 'pino';
 import type { DataSource } from 'typeorm';
 import type { Health } from '../../shared/domain';
 import type { EventBus } from '../events/bus';
-import { SILENT_AFTER_INTERVALS } from '../telemetry/liveness';
+import { isSilent, SILENT_AFTER_INTERVALS } from '../telemetry/liveness';
 import type { MonitoredAppliance } from './monitored-appliance';
 import { saveHealth } from './monitor-store';
 
@@ -31,12 +31,16 @@ export class LivenessSweep {
                             AND s.last_seen_at >= $1::timestamptz - make_interval(secs => $2 * s.interval_seconds))`,
       [new Date(nowMs), SILENT_AFTER_INTERVALS],
     );
-    for (const row of rows) await this.silence(row, nowMs);
-    return rows.length;
+    let silenced = 0;
+    for (const row of rows) if (await this.silence(row, nowMs)) silenced++;
+    return silenced;
   }
 
-  private async silence(row: Record<string, unknown>, nowMs: number): Promise<void> {
+  /** False for an appliance this process heard from lately: a replay or a backlog carries old reading times. */
+  private async silence(row: Record<string, unknown>, nowMs: number): Promise<boolean> {
     const applianceId = row.appliance_id as string;
+    const heard = this.deps.cached(applianceId);
+    if (heard?.lastHeardMs != null && !isSilent(heard.lastHeardMs, heard.ref.intervalSeconds, nowMs)) return false;
     await saveHealth(this.deps.dataSource, applianceId, 'silent', nowMs);
     const cached = this.deps.cached(applianceId);
     if (cached) {
@@ -53,5 +57,6 @@ export class LivenessSweep {
       health: 'silent',
       previous: row.health as Health,
     });
+    return true;
   }
 }

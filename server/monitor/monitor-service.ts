@@ -89,6 +89,7 @@ export class MonitorService {
       const appliance = appliances.get(applianceId);
       if (!appliance) continue;
       changes.take(appliance, appliance.feed(group));
+      appliance.lastHeardMs = nowMs;
       const previous = appliance.restored ? appliance.health : null;
       if (appliance.updateHealth(nowMs) || previous === null) changes.noteHealth(appliance, previous);
     }

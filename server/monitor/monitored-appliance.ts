@@ -61,6 +61,12 @@ export class MonitoredAppliance {
   lastReading: LastReading | null;
   /** False until its state is first written (a new row) or after a failed write. */
   restored: boolean;
+  /**
+   * When this process last received readings for it, on the wall clock. A sensor that
+   * reports is not silent even when its readings are old: a backlog after an outage, or the
+   * demo's accelerated replay of the hours before start.
+   */
+  lastHeardMs: number | null = null;
 
   constructor(
     readonly ref: ApplianceRef,
@@ -132,7 +138,9 @@ export class MonitoredAppliance {
 
   /** Health by the brief's words; a sensor past its liveness limit is silent whatever the engine thinks. */
   healthAt(nowMs: number): Health {
-    if (!this.lastReading || isSilent(this.lastReading.atMs, this.ref.intervalSeconds, nowMs)) return 'silent';
+    if (!this.lastReading) return 'silent';
+    const heardMs = Math.max(this.lastReading.atMs, this.lastHeardMs ?? Number.NEGATIVE_INFINITY);
+    if (isSilent(heardMs, this.ref.intervalSeconds, nowMs)) return 'silent';
     return this.engine.health();
   }
 

@@ -150,8 +150,9 @@ describe('live monitor', () => {
     const rig = new IngestRig(db.url, monitor.hook, 500);
     await rig.play([{ deviceId: device.deviceId, samples: samples.slice(0, -1) }]);
     await monitor.idle();
-    // Liveness (telemetry/liveness.ts): silent after three of its own intervals without a reading.
-    clock.set(samples[samples.length - 2].atMs + 16 * MINUTE_MS);
+    // Liveness (telemetry/liveness.ts): silent after three of its own intervals without a
+    // reading, counted from the later of the newest reading and when the monitor received it.
+    clock.set(Math.max(samples[samples.length - 2].atMs, endMs) + 16 * MINUTE_MS);
     await monitor.sweepLiveness();
     const [silent] = await db.dataSource.query(`SELECT health FROM appliance_monitor WHERE appliance_id = $1`, [device.applianceId]);
     expect(silent.health).toBe('silent');
