@@ -78,5 +78,8 @@ export const HOURLY_RATE_CENTS: readonly [number, number] = [11_500, 12_800];
  * a townhouse row cut off from power conclude their findings over about two hours (freezers
  * first, chest freezers last), and a unit's trouble should wait for its neighbours' before
  * a technician goes to each door (measured in the storyline run; the figure is ours).
+ *
+ * Its urgent jobs pass to the backup contractor after four hours unaccepted instead of 30
+ * minutes, so a visitor has time to sign in as the primary contractor and take the job.
  */
-export const DEMO_ORG_SETTINGS = { dispatchHoldMinutes: 150 } as const;
+export const DEMO_ORG_SETTINGS = { dispatchHoldMinutes: 150, escalateAfterMinutes: 240 } as const;

@@ -41,8 +41,9 @@ async function insertProperty(runner: QueryRunner, organizationId: string, prope
     for (const appliance of unit.appliances) {
       const applianceId = await insertOne(
         runner,
-        `INSERT INTO appliance (unit_id, style, model, serial, installed_on, warranty_ends_on) VALUES ($1, $2, $3, $4, $5, $6) RETURNING id`,
-        [unitId, appliance.style, appliance.model, appliance.serial, appliance.installedOn, appliance.warrantyEndsOn],
+        // In the inventory since its history starts: reports count an appliance from then.
+        `INSERT INTO appliance (unit_id, style, model, serial, installed_on, warranty_ends_on, created_at) VALUES ($1, $2, $3, $4, $5, $6, $7) RETURNING id`,
+        [unitId, appliance.style, appliance.model, appliance.serial, appliance.installedOn, appliance.warrantyEndsOn, new Date(appliance.monitoredFromMs)],
       );
       ids.applianceIds[appliance.key] = applianceId;
       ids.sensorIds[appliance.key] = await insertOne(

@@ -45,7 +45,8 @@ describe('demo accounts', () => {
     const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'cw-seed-'));
     spyOn(console, 'log'); // the seed runner narrates each step
     try {
-      await seedDatabase(fleetDb.dataSource, { reset: false, seed: 7 }, dataDir);
+      // One day of history: this checks who joins which organization, not the months of readings.
+      await seedDatabase(fleetDb.dataSource, { reset: false, seed: 7, historyDays: 1 }, dataDir);
       const [counts] = await fleetDb.dataSource.query(`SELECT (SELECT count(*)::int FROM organization) AS orgs, (SELECT count(DISTINCT organization_id)::int FROM app_user) AS user_orgs`);
       expect(counts).toEqual({ orgs: 1, user_orgs: 1 });
       const [tenant] = await fleetDb.dataSource.query(
