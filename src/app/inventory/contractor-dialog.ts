@@ -7,8 +7,7 @@ import { MatInputModule } from '@angular/material/input';
 import { firstValueFrom } from 'rxjs';
 import type { ContractorView, UpdateContractorRequest } from '../../../shared/api/work-orders';
 import { ContractorApi } from './contractor-api';
-import { DialogSubmit } from './dialog-submit';
-import { errorMessage, fieldErrors } from './messages';
+import { DialogSubmit, showFieldErrors } from './dialog-submit';
 
 type FieldName = 'name' | 'email' | 'phone';
 
@@ -44,15 +43,8 @@ export class ContractorDialog {
         const saved = this.contractor ? await firstValueFrom(this.api.change(this.contractor.id, changedFields(this.contractor, values))) : await firstValueFrom(this.api.create(values));
         this.dialog.close(saved);
       },
-      (error) => this.describe(error),
+      showFieldErrors(this.serverErrors),
     );
-  }
-
-  /** Field errors go beside their fields; the message says to look there. */
-  private describe(error: unknown): string {
-    const fields = fieldErrors(error) as Partial<Record<FieldName, string>>;
-    this.serverErrors.set(fields);
-    return Object.keys(fields).length ? 'Check the fields marked below.' : errorMessage(error);
   }
 }
 

@@ -1,5 +1,7 @@
+import { signal } from '@angular/core';
 import { FormControl, Validators } from '@angular/forms';
-import { DialogSubmit } from './dialog-submit';
+import { ApiError } from '../core/http/api-error.interceptor';
+import { DialogSubmit, showFieldErrors } from './dialog-submit';
 
 describe('DialogSubmit', () => {
   const validForm = () => new FormControl('Linden Court', { nonNullable: true, validators: [Validators.required] });
@@ -47,5 +49,18 @@ describe('DialogSubmit', () => {
     );
     expect(submit.error()).toBe('Not saved: 409');
     expect(submit.busy()).toBeFalse();
+  });
+
+  it('puts the server\'s field errors beside their fields and says to look there', () => {
+    const serverErrors = signal<Partial<Record<'name', string>>>({});
+    const error = new ApiError(409, 'Not saved', [{ path: 'name', message: 'that name is taken' }]);
+    expect(showFieldErrors(serverErrors)(error)).toBe('Check the fields marked below.');
+    expect(serverErrors()).toEqual({ name: 'That name is taken' });
+  });
+
+  it('says the failure itself when the server names no field, and clears the fields\' errors', () => {
+    const serverErrors = signal<Partial<Record<'name', string>>>({ name: 'stale' });
+    expect(showFieldErrors(serverErrors)(new ApiError(503, 'The server is busy.'))).toBe('The server is busy.');
+    expect(serverErrors()).toEqual({});
   });
 });

@@ -1,6 +1,6 @@
-import { signal } from '@angular/core';
+import { signal, type WritableSignal } from '@angular/core';
 import type { AbstractControl } from '@angular/forms';
-import { errorMessage } from './messages';
+import { errorMessage, fieldErrors } from './messages';
 
 /**
  * The submit of an inventory dialog's form: an invalid form shows its errors instead, one
@@ -26,4 +26,13 @@ export class DialogSubmit {
       this.busy.set(false);
     }
   }
+}
+
+/** A `describe` for a dialog that shows the server's field errors beside their fields: the message says to look there. */
+export function showFieldErrors<F extends string>(serverErrors: WritableSignal<Partial<Record<F, string>>>): (error: unknown) => string {
+  return (error) => {
+    const fields = fieldErrors(error) as Partial<Record<F, string>>;
+    serverErrors.set(fields);
+    return Object.keys(fields).length ? 'Check the fields marked below.' : errorMessage(error);
+  };
 }

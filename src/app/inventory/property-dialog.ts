@@ -8,8 +8,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { firstValueFrom } from 'rxjs';
 import { canonicalTimeZone, type PropertyChange, type PropertyView } from '../../../shared/api/inventory';
-import { DialogSubmit } from './dialog-submit';
-import { errorMessage, fieldErrors } from './messages';
+import { DialogSubmit, showFieldErrors } from './dialog-submit';
 import { PropertyApi } from './property-api';
 
 const TIME_ZONES: readonly string[] = typeof Intl.supportedValuesOf === 'function' ? Intl.supportedValuesOf('timeZone') : [];
@@ -65,15 +64,8 @@ export class PropertyDialog {
         const saved = this.property ? await firstValueFrom(this.api.change(this.property.id, changedFields(this.property, input))) : await firstValueFrom(this.api.create(input));
         this.dialog.close(saved);
       },
-      (error) => this.describe(error),
+      showFieldErrors(this.serverErrors),
     );
-  }
-
-  /** Field errors go beside their fields; the message says to look there. */
-  private describe(error: unknown): string {
-    const fields = fieldErrors(error) as Partial<Record<FieldName, string>>;
-    this.serverErrors.set(fields);
-    return Object.keys(fields).length ? 'Check the fields marked below.' : errorMessage(error);
   }
 }
 
