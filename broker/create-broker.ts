@@ -8,6 +8,7 @@ import { DeviceAuthenticator } from './device-auth';
 import { IndexedMemoryPersistence } from './memory-persistence';
 import { redisSharedState, type SharedState } from './persistence';
 import { RejectSink } from './reject-sink';
+import { coalesceWrites } from './coalesce-writes';
 
 export interface RunningBroker {
   aedes: Aedes;
@@ -41,7 +42,10 @@ export async function startBroker(config: BrokerConfig, logger: Logger): Promise
   aedes.on('clientError', (client, error) => logger.debug({ client: client.id, err: error.message }, 'broker: client error'));
   aedes.on('connectionError', (client, error) => logger.debug({ client: client?.id, err: error.message }, 'broker: connection error'));
 
-  const server = net.createServer(aedes.handle);
+  const server = net.createServer((socket) => {
+    coalesceWrites(socket);
+    aedes.handle(socket);
+  });
   const sockets = new Set<net.Socket>();
   server.on('connection', (socket) => {
     sockets.add(socket);

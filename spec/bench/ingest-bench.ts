@@ -34,7 +34,8 @@ const WINDOW_PER_DEVICE = Number(process.env.BENCH_WINDOW ?? 8);
 const LATENCY_RATE_PER_S = 5000;
 const LATENCY_SECONDS = 15;
 const HISTORY_QUERIES = 40;
-const NOTES_FILE = '/work/notes/ingest-bench.txt';
+/** The table is also kept beside the other benchmark output, in the git-ignored data folder. */
+const NOTES_FILE = path.join(__dirname, '..', '..', '.data', 'bench', 'ingest-bench.txt');
 const DAY_MS = 86_400_000;
 /** BENCH_PROFILE_DIR=dir writes CPU profiles of the broker and publisher processes there. */
 const PROFILE_ARGS = process.env.BENCH_PROFILE_DIR ? ['--cpu-prof', `--cpu-prof-dir=${process.env.BENCH_PROFILE_DIR}`] : [];
