@@ -30,7 +30,7 @@ describe('FleetFilterBar', () => {
     const { host, loader } = await render();
     const listbox = await loader.getHarness(MatChipListboxHarness);
     const chips = await listbox.getChips();
-    expect(await Promise.all(chips.map((chip) => chip.getText()))).toEqual(['cold2', 'drifting1', 'warm1', 'no cooling0', 'silent1']);
+    expect(await Promise.all(chips.map((chip) => chip.getText()))).toEqual(['cold2 appliances', 'drifting1 appliances', 'warm1 appliances', 'no cooling0 appliances', 'silent1 appliances']);
     await listbox.selectChips({ text: /warm/ });
     await listbox.selectChips({ text: /silent/ });
     expect(host.changes.at(-1)).toEqual({ health: ['warm', 'silent'] });

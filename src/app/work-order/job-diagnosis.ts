@@ -1,7 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input, signal } from '@angular/core';
 import { MatCardModule } from '@angular/material/card';
 import { MatIconModule } from '@angular/material/icon';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { DiagnosisView } from '../../../shared/api/work-orders';
 import { CAUSES, type CauseInfo } from '../../../shared/causes';
 import type { CauseCode } from '../../../shared/domain';
@@ -17,7 +16,7 @@ interface RankedCause {
 /** The engine's probable causes with their confidence; for the chosen one, the parts to bring and the checks to make. */
 @Component({
   selector: 'cw-job-diagnosis',
-  imports: [MatCardModule, MatIconModule, MatProgressBarModule, ZonedDatePipe],
+  imports: [MatCardModule, MatIconModule, ZonedDatePipe],
   templateUrl: './job-diagnosis.html',
   styleUrl: './job-diagnosis.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
