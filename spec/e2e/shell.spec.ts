@@ -1,5 +1,6 @@
 import fs from 'node:fs';
 import path from 'node:path';
+import { accessibilityViolations } from './support/accessibility';
 import { BASE_URL, openPage, screenshot, type WatchedPage } from './support/browser';
 
 describe('the served app shell', () => {
@@ -24,6 +25,7 @@ describe('the served app shell', () => {
     expect(await page.locator('[data-component="server"] .state').textContent()).toBe('Up');
     expect(await page.getByRole('link', { name: 'Sign in' }).count()).toBeGreaterThan(0);
     expect(await page.title()).toBe('System status · Chillwarden');
+    expect(await accessibilityViolations(page)).withContext('axe-core on the status page').toEqual([]);
     await screenshot(page, 'shell-status');
   });
 
@@ -32,6 +34,7 @@ describe('the served app shell', () => {
     await page.goto(`${BASE_URL}/fleet`);
     await page.waitForURL(/\/sign-in\?returnUrl=%2Ffleet$/);
     await page.getByRole('heading', { name: 'Sign in' }).waitFor();
+    expect(await accessibilityViolations(page)).withContext('axe-core on the sign-in page').toEqual([]);
   });
 
   it('fits a 375 px phone with the navigation behind a menu button', async () => {
