@@ -2,6 +2,7 @@ import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import type { HttpTestingController } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
+import { MatFormFieldHarness } from '@angular/material/form-field/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
 import type { WorkOrderView } from '../../../shared/api/work-orders';
 import { JobCosts } from './job-costs';
@@ -38,6 +39,9 @@ describe('JobCosts', () => {
     await settle(fixture);
     expect(emitted).toEqual([after]);
     expect(await (await input(loader, 'name')).getValue()).toBe(''); // ready for the next part
+    // The emptied form is not marked as wrong before the next part is typed.
+    const fields = await loader.getAllHarnesses(MatFormFieldHarness);
+    expect(await Promise.all(fields.map((field) => field.hasErrors()))).not.toContain(true);
   });
 
   it('records labour as minutes and an hourly rate', async () => {

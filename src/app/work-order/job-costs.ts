@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal, type WritableSignal } from '@angular/core';
-import { FormControl, FormGroup, ReactiveFormsModule, Validators, type AbstractControl, type ValidationErrors } from '@angular/forms';
+import { FormControl, FormGroup, ReactiveFormsModule, Validators, type AbstractControl, type FormGroupDirective, type ValidationErrors } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -58,24 +58,25 @@ export class JobCosts {
     return Math.round((minutes * hourlyRateCents) / 60);
   }
 
-  protected addPart(): void {
+  /** resetForm on the directive, not reset on the group: the submitted flag would keep every field showing its error. */
+  protected addPart(directive: FormGroupDirective): void {
     if (this.partForm.invalid) {
       this.partForm.markAllAsTouched();
       return;
     }
     const { name, quantity, unitCost } = this.partForm.getRawValue();
     const body = { name: name.trim(), quantity: Number(quantity), unitCostCents: parseMoneyToCents(unitCost)!, currency: this.currency() };
-    this.send('part', this.api.recordPart(this.job().id, body), this.partError, () => this.partForm.reset({ name: '', quantity: 1, unitCost: '' }));
+    this.send('part', this.api.recordPart(this.job().id, body), this.partError, () => directive.resetForm({ name: '', quantity: 1, unitCost: '' }));
   }
 
-  protected addLabour(): void {
+  protected addLabour(directive: FormGroupDirective): void {
     if (this.labourForm.invalid) {
       this.labourForm.markAllAsTouched();
       return;
     }
     const { minutes, hourlyRate } = this.labourForm.getRawValue();
     const body = { minutes: Number(minutes), hourlyRateCents: parseMoneyToCents(hourlyRate)! };
-    this.send('labour', this.api.recordLabour(this.job().id, body), this.labourError, () => this.labourForm.reset({ minutes: null, hourlyRate }));
+    this.send('labour', this.api.recordLabour(this.job().id, body), this.labourError, () => directive.resetForm({ minutes: null, hourlyRate }));
   }
 
   private send(which: 'part' | 'labour', call: Observable<WorkOrderView>, error: WritableSignal<string | null>, reset: () => void): void {
