@@ -4,17 +4,11 @@ import { MatCardModule } from '@angular/material/card';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { IncidentWithFindings } from '../../../shared/api/appliances';
-import { CAUSES, SAFETY_CAUTIONS, type CauseInfo } from '../../../shared/causes';
+import { SAFETY_CAUTIONS } from '../../../shared/causes';
 import type { CauseCode } from '../../../shared/domain';
 import { KIND_LABELS, SEVERITY_LABELS } from '../fleet/appliance-words';
 import { ZonedDatePipe } from '../fleet/zoned-date';
-
-export interface RankedCause {
-  code: CauseCode;
-  confidence: number;
-  percent: number;
-  info: CauseInfo;
-}
+import { rankCauses, type RankedCause } from '../shared/rank-causes';
 
 /** The open incident's probable causes with their confidence, and for the chosen one what to bring, check and watch out for. */
 @Component({
@@ -33,11 +27,7 @@ export class DiagnosisCard {
   protected readonly severityLabels = SEVERITY_LABELS;
   private readonly picked = signal<CauseCode | null>(null);
 
-  protected readonly causes = computed<RankedCause[]>(() =>
-    [...(this.incident()?.probableCauses ?? [])]
-      .sort((a, b) => b.confidence - a.confidence)
-      .map((cause) => ({ ...cause, percent: Math.round(cause.confidence * 100), info: CAUSES[cause.code] })),
-  );
+  protected readonly causes = computed(() => rankCauses(this.incident()?.probableCauses ?? []));
 
   /** The cause whose repair content is shown: the one picked, else the most likely. */
   protected readonly shown = computed<RankedCause | null>(() => this.causes().find((c) => c.code === this.picked()) ?? this.causes().at(0) ?? null);

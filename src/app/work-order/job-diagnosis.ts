@@ -2,16 +2,10 @@ import { ChangeDetectionStrategy, Component, computed, input, signal } from '@an
 import { MatCardModule } from '@angular/material/card';
 import { MatIconModule } from '@angular/material/icon';
 import type { DiagnosisView } from '../../../shared/api/work-orders';
-import { CAUSES, type CauseInfo } from '../../../shared/causes';
 import type { CauseCode } from '../../../shared/domain';
 import { KIND_LABELS, SEVERITY_LABELS } from '../fleet/appliance-words';
 import { ZonedDatePipe } from '../fleet/zoned-date';
-
-interface RankedCause {
-  code: CauseCode;
-  percent: number;
-  info: CauseInfo;
-}
+import { rankCauses, type RankedCause } from '../shared/rank-causes';
 
 /** The engine's probable causes with their confidence; for the chosen one, the parts to bring and the checks to make. */
 @Component({
@@ -29,18 +23,14 @@ export class JobDiagnosis {
   protected readonly severityLabels = SEVERITY_LABELS;
   private readonly picked = signal<CauseCode | null>(null);
 
-  protected readonly causes = computed<RankedCause[]>(() =>
-    [...(this.diagnosis().incident?.probableCauses ?? [])]
-      .sort((a, b) => b.confidence - a.confidence)
-      .map((cause) => ({ code: cause.code, percent: Math.round(cause.confidence * 100), info: CAUSES[cause.code] })),
-  );
+  protected readonly causes = computed(() => rankCauses(this.diagnosis().incident?.probableCauses ?? []));
 
   /** The cause whose repair content is shown: the one tapped, else the most likely (or the request's own when no incident ranks any). */
   protected readonly shown = computed<RankedCause | null>(() => {
     const ranked = this.causes().find((c) => c.code === this.picked()) ?? this.causes().at(0);
     if (ranked) return ranked;
     const cause = this.diagnosis().cause;
-    return cause ? { code: cause.code, percent: 0, info: cause } : null;
+    return cause ? { code: cause.code, confidence: 0, percent: 0, info: cause } : null;
   });
 
   protected pick(code: CauseCode): void {
