@@ -8,7 +8,7 @@ import { DeviceAuthenticator } from './device-auth';
 import { IndexedMemoryPersistence } from './memory-persistence';
 import { redisSharedState, type SharedState } from './persistence';
 import { RejectSink } from './reject-sink';
-import { coalesceWrites } from './coalesce-writes';
+import { coalesceWrites } from '../server/telemetry/coalesce-writes';
 
 export interface RunningBroker {
   aedes: Aedes;

@@ -1,4 +1,6 @@
+import type { Socket } from 'node:net';
 import mqtt, { type IPublishPacket, type MqttClient } from 'mqtt';
+import { coalesceWrites } from '../telemetry/coalesce-writes';
 
 /**
  * An MQTT 3.1.1 subscriber that acknowledges a QoS 1 message only when told to, so the
@@ -82,7 +84,11 @@ export class AckingSubscriber {
     });
     this.client = client;
     client.handleMessage = (packet, callback) => this.handle(packet, callback);
-    client.on('connect', () => (this.subscribing = this.subscribe()));
+    client.on('connect', () => {
+      // A committed batch acknowledges thousands of messages at once: one writev, not one per PUBACK.
+      coalesceWrites(client.stream as unknown as Socket);
+      this.subscribing = this.subscribe();
+    });
     client.on('close', () => this.connectionLost());
     client.on('error', (error) => options.onError?.(error));
     await new Promise<void>((resolve) => client.once('connect', () => resolve()));

@@ -71,6 +71,19 @@ function isDataError(error: unknown): boolean {
   return typeof code === 'string' && /^2[23]/.test(code);
 }
 
+function rejectOf({ message, receivedAtMs }: QueuedItem, reason: RejectReason, detail: string, deviceId: string | null, sensorId: string | null): RejectEntry {
+  return {
+    source: 'ingest',
+    reason,
+    atMs: receivedAtMs,
+    sensorId,
+    deviceId,
+    topic: message.topic.slice(0, 200),
+    detail,
+    payloadExcerpt: payloadExcerpt(message.payload),
+  };
+}
+
 /** Orders the readings the way detection wants them: per appliance, by reading time. */
 function byApplianceAndTime(a: StoredReading, b: StoredReading): number {
   const appliance = (a.applianceId ?? '').localeCompare(b.applianceId ?? '');
@@ -241,28 +254,19 @@ export class IngestPipeline {
     const rejects: RejectEntry[] = [];
     const seen = new Set<string>();
     let repeats = 0;
-    for (const { message, verdict, receivedAtMs } of batch) {
-      const rejectOf = (reason: RejectReason, detail: string, deviceId: string | null, sensorId: string | null): RejectEntry => ({
-        source: 'ingest',
-        reason,
-        atMs: receivedAtMs,
-        sensorId,
-        deviceId,
-        topic: message.topic.slice(0, 200),
-        detail,
-        payloadExcerpt: payloadExcerpt(message.payload),
-      });
+    for (const item of batch) {
+      const { verdict } = item;
       if (!verdict.ok) {
         const sensorId = verdict.deviceId ? (sensors.get(verdict.deviceId)?.sensorId ?? null) : null;
-        rejects.push(rejectOf(verdict.reason, verdict.detail, verdict.deviceId, sensorId));
+        rejects.push(rejectOf(item, verdict.reason, verdict.detail, verdict.deviceId, sensorId));
         continue;
       }
       const ref = sensors.get(verdict.reading.deviceId);
       if (!ref) {
-        rejects.push(rejectOf('unknown-sensor', `device id ${verdict.reading.deviceId}`, verdict.reading.deviceId, null));
+        rejects.push(rejectOf(item, 'unknown-sensor', `device id ${verdict.reading.deviceId}`, verdict.reading.deviceId, null));
         continue;
       }
-      for (const note of verdict.notes) rejects.push(rejectOf(note.reason, note.detail, verdict.reading.deviceId, ref.sensorId));
+      for (const note of verdict.notes) rejects.push(rejectOf(item, note.reason, note.detail, verdict.reading.deviceId, ref.sensorId));
       const key = `${ref.sensorId}|${verdict.reading.atMs}`;
       if (seen.has(key)) {
         repeats++;

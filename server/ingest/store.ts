@@ -44,7 +44,9 @@ function rollupUpsert(table: string, width: string): string {
 const WRITE_BATCH = `
   WITH ins AS (
     INSERT INTO reading (sensor_id, appliance_id, at, seq, fresh_food_c, freezer_c, fresh_food_flag, freezer_flag, battery_v, door_open)
-    SELECT * FROM unnest($1::uuid[], $2::uuid[], $3::timestamptz[], $4::bigint[], $5::real[], $6::real[], $7::text[], $8::text[], $9::real[], $10::boolean[])
+    SELECT sensor_id, appliance_id, to_timestamp(at_ms / 1000), seq, fresh_food_c, freezer_c, fresh_food_flag, freezer_flag, battery_v, door_open
+    FROM unnest($1::uuid[], $2::uuid[], $3::float8[], $4::bigint[], $5::real[], $6::real[], $7::text[], $8::text[], $9::real[], $10::boolean[])
+      AS r(sensor_id, appliance_id, at_ms, seq, fresh_food_c, freezer_c, fresh_food_flag, freezer_flag, battery_v, door_open)
     ON CONFLICT DO NOTHING
     RETURNING sensor_id, appliance_id, at, fresh_food_c, freezer_c, door_open
   ),
@@ -58,18 +60,37 @@ const WRITE_BATCH = `
 const COUNT_INSERTED = `${WRITE_BATCH} SELECT count(*)::int AS inserted FROM ins`;
 const LIST_INSERTED = `${WRITE_BATCH} SELECT sensor_id::text AS sensor_id, (extract(epoch FROM at) * 1000)::float8 AS at_ms FROM ins`;
 
-function columns(readings: StoredReading[]): unknown[] {
+type ArrayElement = string | number | boolean | null;
+
+/** A text element quoted for an array literal (backslash and double quote escaped). */
+const quoted = (text: string) => `"${text.replace(/[\\"]/g, '\\$&')}"`;
+
+/**
+ * One column as a PostgreSQL array literal. node-postgres would escape and convert every
+ * element on its own (dates through local-time strings); a batch of thousands of readings
+ * is cheaper written as one string, the times as epoch milliseconds.
+ */
+function arrayLiteral(values: ArrayElement[], asText = false): string {
+  const items = values.map((value) => {
+    if (value === null) return 'NULL';
+    if (typeof value === 'boolean') return value ? 't' : 'f';
+    return asText ? quoted(String(value)) : String(value);
+  });
+  return `{${items.join(',')}}`;
+}
+
+function columns(readings: StoredReading[]): string[] {
   return [
-    readings.map((r) => r.sensorId),
-    readings.map((r) => r.applianceId),
-    readings.map((r) => new Date(r.atMs)),
-    readings.map((r) => r.seq),
-    readings.map((r) => r.freshFoodC),
-    readings.map((r) => r.freezerC),
-    readings.map((r) => r.freshFoodFlag),
-    readings.map((r) => r.freezerFlag),
-    readings.map((r) => r.batteryV),
-    readings.map((r) => r.doorOpen),
+    arrayLiteral(readings.map((r) => r.sensorId)),
+    arrayLiteral(readings.map((r) => r.applianceId)),
+    arrayLiteral(readings.map((r) => r.atMs)),
+    arrayLiteral(readings.map((r) => r.seq)),
+    arrayLiteral(readings.map((r) => r.freshFoodC)),
+    arrayLiteral(readings.map((r) => r.freezerC)),
+    arrayLiteral(readings.map((r) => r.freshFoodFlag), true),
+    arrayLiteral(readings.map((r) => r.freezerFlag), true),
+    arrayLiteral(readings.map((r) => r.batteryV)),
+    arrayLiteral(readings.map((r) => r.doorOpen)),
   ];
 }
 

@@ -1,5 +1,5 @@
 import net from 'node:net';
-import { coalesceWrites } from '../../broker/coalesce-writes';
+import { coalesceWrites } from '../../server/telemetry/coalesce-writes';
 
 const nextTurn = () => new Promise((resolve) => setImmediate(resolve));
 
