@@ -24,7 +24,8 @@ async function main() {
       .sort();
     for (const name of benches) {
       log(`── ${name}`);
-      const result = spawnSync(process.execPath, ['--import', 'tsx', path.join('spec', 'bench', name)], {
+      // The same V8 flag the broker and server run with (the ingest benchmark's worker runs in-process).
+      const result = spawnSync(process.execPath, ['--max-semi-space-size=64', '--import', 'tsx', path.join('spec', 'bench', name)], {
         cwd: ROOT,
         stdio: 'inherit',
         env: { ...process.env, TSX_TSCONFIG_PATH: 'server/tsconfig.json', NODE_ENV: 'test', LOG_LEVEL: 'silent', TEST_PG_ADMIN_URL: `postgres://postgres@127.0.0.1:${PG_PORT}/postgres` },

@@ -6,11 +6,18 @@ import path from 'node:path';
 const FROM_SOURCES = __filename.endsWith('.ts');
 const ROOT_OF_THIS_BUILD = path.resolve(__dirname, '..', '..');
 
+/**
+ * For the processes that move every reading (broker, ingest): a larger young generation,
+ * so V8 collects the per-message garbage less often (about 7 % more readings/s in the
+ * ingest benchmark here; scripts/lib/services.mjs passes the same flag).
+ */
+export const THROUGHPUT_NODE_FLAGS = ['--max-semi-space-size=64'];
+
 /** `node` for an entry of this code base, e.g. 'broker/main', from sources or from the build. */
 export function nodeArgsFor(entry: string): { args: string[]; env: NodeJS.ProcessEnv } {
-  if (!FROM_SOURCES) return { args: [path.join(ROOT_OF_THIS_BUILD, `${entry}.js`)], env: {} };
+  if (!FROM_SOURCES) return { args: [...THROUGHPUT_NODE_FLAGS, path.join(ROOT_OF_THIS_BUILD, `${entry}.js`)], env: {} };
   return {
-    args: ['--import', 'tsx', path.join(ROOT_OF_THIS_BUILD, `${entry}.ts`)],
+    args: [...THROUGHPUT_NODE_FLAGS, '--import', 'tsx', path.join(ROOT_OF_THIS_BUILD, `${entry}.ts`)],
     env: { TSX_TSCONFIG_PATH: path.join(ROOT_OF_THIS_BUILD, 'server', 'tsconfig.json') },
   };
 }

@@ -1,6 +1,6 @@
 /**
  * Ingest benchmark (issue 3), run by `npm run bench` or on its own:
- *   TSX_TSCONFIG_PATH=server/tsconfig.json npx tsx spec/bench/ingest-bench.ts
+ *   TSX_TSCONFIG_PATH=server/tsconfig.json node --max-semi-space-size=64 --import tsx spec/bench/ingest-bench.ts
  * against the project's PostgreSQL (a throwaway database). Processes as deployed: the
  * broker in its own process, the sensors (one MQTT connection each) in another, the
  * subscriber or ingest worker in this one. Figures:

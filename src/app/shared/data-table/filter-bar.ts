@@ -30,7 +30,8 @@ export const SEARCH_DEBOUNCE_MS = 300;
 export class FilterBar {
   readonly table = input.required<FilterTarget>();
   readonly fields = input.required<readonly FilterField[]>();
-  protected readonly values = computed(() => this.table().state().filters);
+  /** Partial: a filter nobody has set has no key, and the template shows it empty. */
+  protected readonly values = computed<Readonly<Partial<Record<string, string>>>>(() => this.table().state().filters);
   private readonly typing = new Subject<{ key: string; value: string }>();
 
   constructor() {
