@@ -38,7 +38,7 @@ function storylineLines(storyline, options) {
   const lines = [`  The storyline (simulated time at ${speed}×; it catches up with the clock after about ${Math.ceil((STORYLINE_REPLAY_HOURS * 60) / Math.max(1, speed - 1))} min):`];
   const bySeen = [...storyline.STORYLINE].sort((a, b) => a.seenH - b.seenH);
   for (const step of bySeen) lines.push(`    ${`about minute ${Math.max(1, Math.round((step.seenH * 60) / speed))}`.padEnd(17)} ${step.shows}`);
-  lines.push('    While the replay catches up, tiles show "silent": the newest readings are hours old until then.', '');
+  lines.push('    While the replay catches up, the charts end hours before now; the tiles already count the sensors as heard.', '');
   return lines;
 }
 

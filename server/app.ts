@@ -24,6 +24,8 @@ export interface AppDeps {
   dataSource: DataSource;
   logger: Logger;
   brokerProbe: ComponentProbe;
+  /** The ingest running in this process, when it does (server/services/ingest-probe.ts). */
+  ingestProbe?: ComponentProbe;
   version: string;
   /** Sign-in, sessions and mail; specs that never sign in may leave it out. */
   accounts?: AccountsOptions;
@@ -97,7 +99,7 @@ export function createApp(deps: AppDeps): Express {
 
   // Every route is mounted through the route table, which records its access rule.
   const routes = new RouteTable();
-  const health = new HealthService(deps.version, { database: databaseProbe(deps.dataSource), broker: deps.brokerProbe });
+  const health = new HealthService(deps.version, { database: databaseProbe(deps.dataSource), broker: deps.brokerProbe, ingest: deps.ingestProbe });
   // The health router answers both paths; each is declared so the table lists it.
   const healthApi = healthRouter(health);
   routes.mount(

@@ -12,6 +12,7 @@ import { startMonitor } from './monitor/start';
 import { startObjectStorage } from './storage/setup';
 import { createWorkOrders } from './work-orders/create';
 import { brokerProbe } from './services/broker-probe';
+import { ingestProbe } from './services/ingest-probe';
 
 /** Starts the server: connects, migrates, listens; stops cleanly on SIGINT/SIGTERM. */
 async function main(): Promise<void> {
@@ -32,14 +33,24 @@ async function main(): Promise<void> {
   // Requests and work orders: opened from the monitor's incidents on the bus, timers on a sweeper.
   const workOrders = createWorkOrders({ dataSource: AppDataSource, publicUrl: config.publicUrl, logger, bus, clock: systemClock, mailer: mail.mailer, store: storage.store });
   await workOrders.start();
-  const app = createApp({ config, dataSource: AppDataSource, logger, brokerProbe: brokerProbe(config.mqttUrl), version: packageVersion(), accounts, bus, workOrders });
+  // Live detection: every committed batch goes through the monitor, which publishes on the bus.
+  const monitor = startMonitor({ dataSource: AppDataSource, bus, logger, clock: systemClock });
+  const ingest = await startIngestInServer(config, logger, monitor.service.hook);
+  const app = createApp({
+    config,
+    dataSource: AppDataSource,
+    logger,
+    brokerProbe: brokerProbe(config.mqttUrl),
+    ingestProbe: ingest ? ingestProbe(ingest) : undefined,
+    version: packageVersion(),
+    accounts,
+    bus,
+    workOrders,
+  });
   const server = app.listen(config.port, config.host, () => {
     logger.info(`listening on ${config.publicUrl}`);
     if (devInbox) logger.info(`dev inbox (e-mail sent by the server) at ${config.publicUrl}/dev/inbox`);
   });
-  // Live detection: every committed batch goes through the monitor, which publishes on the bus.
-  const monitor = startMonitor({ dataSource: AppDataSource, bus, logger, clock: systemClock });
-  const ingest = await startIngestInServer(config, logger, monitor.service.hook);
 
   const stop = async (signal: string) => {
     logger.info({ signal }, 'stopping');

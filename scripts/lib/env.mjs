@@ -16,6 +16,9 @@ export function stackEnv({ ports = DEFAULT_PORTS, database, dataDir = DATA_DIR, 
     MQTT_URL: `mqtt://127.0.0.1:${ports.mqtt}`,
     MQTT_PORT: String(ports.mqtt),
     CHILLWARDEN_DATA_DIR: dataDir,
+    // The stack is decided on Node 20 and package-lock pins an SDK that supports it; the
+    // SDK's notice that later releases will need Node 22 would only clutter the start-up.
+    AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ?? 'true',
     ...extra,
   };
 }

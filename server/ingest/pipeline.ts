@@ -48,6 +48,10 @@ export interface PipelineStats {
   droppedQos0: number;
   queued: number;
   lastError: string | null;
+  /** When the last batch was committed. */
+  lastCommitAtMs: number | null;
+  /** Since when storing has been failing and being retried; null while writes succeed. */
+  failingSinceMs: number | null;
 }
 
 interface QueuedItem {
@@ -106,6 +110,8 @@ export class IngestPipeline {
     droppedQos0: 0,
     queued: 0,
     lastError: null,
+    lastCommitAtMs: null,
+    failingSinceMs: null,
   };
 
   constructor(
@@ -187,9 +193,13 @@ export class IngestPipeline {
     let delayMs = this.settings.backoffInitialMs;
     for (;;) {
       try {
-        return await this.write(batch);
+        const stored = await this.write(batch);
+        this.counters.lastCommitAtMs = Date.now();
+        this.counters.failingSinceMs = null;
+        return stored;
       } catch (error) {
         if (isDataError(error)) return this.isolate(batch, error as Error);
+        this.counters.failingSinceMs ??= Date.now();
         this.counters.retries++;
         this.counters.lastError = (error as Error).message;
         this.deps.logger.warn({ err: error, retryInMs: delayMs, batch: batch.length }, 'ingest: storing a batch failed; retrying');

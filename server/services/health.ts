@@ -37,14 +37,15 @@ export class HealthService {
 
   constructor(
     private readonly version: string,
-    private readonly probes: { database: ComponentProbe; broker: ComponentProbe },
+    private readonly probes: { database: ComponentProbe; broker: ComponentProbe; ingest?: ComponentProbe },
   ) {}
 
   async report(): Promise<HealthReport> {
-    const [database, broker] = await Promise.all([this.probes.database(), this.probes.broker()]);
+    const [database, broker, ingest] = await Promise.all([this.probes.database(), this.probes.broker(), this.probes.ingest?.()]);
     const uptimeS = Math.round((Date.now() - this.startedAt.getTime()) / 1000);
+    const allUp = [database, broker, ingest].every((component) => !component || component.state === 'up');
     return {
-      status: database.state === 'up' && broker.state === 'up' ? 'ok' : 'degraded',
+      status: allUp ? 'ok' : 'degraded',
       version: this.version,
       startedAt: this.startedAt.toISOString(),
       checkedAt: new Date().toISOString(),
@@ -52,6 +53,7 @@ export class HealthService {
         server: { state: 'up', latencyMs: 0, detail: `up ${uptimeS} s, Node ${process.version}` },
         database,
         broker,
+        ...(ingest ? { ingest } : {}),
       },
     };
   }

@@ -16,5 +16,7 @@ export interface HealthReport {
     server: ComponentHealth;
     database: ComponentHealth;
     broker: ComponentHealth;
+    /** The ingest in the server process; absent when separate workers ingest (INGEST_IN_SERVER=false). */
+    ingest?: ComponentHealth;
   };
 }

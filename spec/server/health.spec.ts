@@ -8,6 +8,7 @@ import { createTestDatabase, type TestDatabase } from '../support/test-db';
 describe('GET /api/health', () => {
   let db: TestDatabase;
   let brokerUp = true;
+  let ingestUp: boolean | null = null;
 
   const appWith = () =>
     createApp({
@@ -18,6 +19,7 @@ describe('GET /api/health', () => {
         if (!brokerUp) throw new Error('connection refused');
         return 'fake broker';
       }),
+      ingestProbe: ingestUp === null ? undefined : async () => ({ state: ingestUp ? 'up' : 'down', latencyMs: null, detail: ingestUp ? '12 readings stored' : 'not connected to the broker' }),
       version: '9.9.9',
     });
 
@@ -48,6 +50,20 @@ describe('GET /api/health', () => {
     await request(appWith()).get('/api/health/ready').expect(503);
     brokerUp = true;
     await request(appWith()).get('/api/health/ready').expect(200);
+  });
+
+  it('leaves the ingest out when this process runs none, and counts it when it does', async () => {
+    brokerUp = true;
+    ingestUp = null;
+    expect((await request(appWith()).get('/api/health').expect(200)).body.components.ingest).toBeUndefined();
+    ingestUp = false;
+    const res = await request(appWith()).get('/api/health').expect(200);
+    expect(res.body.status).toBe('degraded');
+    expect(res.body.components.ingest).toEqual({ state: 'down', latencyMs: null, detail: 'not connected to the broker' });
+    await request(appWith()).get('/api/health/ready').expect(503);
+    ingestUp = true;
+    expect((await request(appWith()).get('/api/health').expect(200)).body.status).toBe('ok');
+    ingestUp = null;
   });
 
   it('answers a JSON 404 for an unknown API path', async () => {

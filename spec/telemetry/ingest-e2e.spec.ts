@@ -6,6 +6,7 @@ import { readingTopic } from '../../shared/telemetry';
 import { readingPayload } from '../../simulator/cli/device-link';
 import { createRng, generateTrace, randomProfile } from '../../simulator/model';
 import { createTestDatabase, type TestDatabase } from '../support/test-db';
+import { describeIngest } from '../../server/services/ingest-probe';
 import {
   TcpProxy,
   connectDevice,
@@ -132,8 +133,12 @@ describe('ingest end to end: broker → ingest → PostgreSQL', () => {
       await publishAll(clients[0], readings.slice(50, 80));
       await sleep(500);
       expect(worker.stats().retries).toBeGreaterThan(0);
+      // The status page says so while it lasts, and clears once a batch is stored again.
+      expect(describeIngest(worker.stats(), Date.now())).toEqual(jasmine.objectContaining({ state: 'down', detail: jasmine.stringMatching(/^storing readings has failed since .* UTC/) }));
       proxy.up();
       await eventually('the readings held during the outage', async () => (await storedCount()) === 80);
+      expect(worker.stats().failingSinceMs).toBeNull();
+      expect(describeIngest(worker.stats(), Date.now()).state).toBe('up');
 
       // Outage during which the worker dies: nothing it held was acknowledged, so the broker
       // hands all of it to the next worker with the same session.

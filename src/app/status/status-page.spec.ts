@@ -8,9 +8,9 @@ import type { HealthReport } from '../../../shared/api/health';
 import { apiErrorInterceptor } from '../core/http/api-error.interceptor';
 import { StatusPage } from './status-page';
 
-function report(brokerUp: boolean): HealthReport {
+function report(brokerUp: boolean, ingest?: HealthReport['components']['ingest']): HealthReport {
   return {
-    status: brokerUp ? 'ok' : 'degraded',
+    status: brokerUp && ingest?.state !== 'down' ? 'ok' : 'degraded',
     version: '1.2.3',
     startedAt: '2026-12-01T10:00:00.000Z',
     checkedAt: '2026-12-01T10:05:00.000Z',
@@ -18,6 +18,7 @@ function report(brokerUp: boolean): HealthReport {
       server: { state: 'up', latencyMs: 0, detail: 'up 300 s' },
       database: { state: 'up', latencyMs: 3, detail: 'PostgreSQL 15.18' },
       broker: brokerUp ? { state: 'up', latencyMs: 1, detail: 'MQTT broker' } : { state: 'down', latencyMs: null, detail: 'connection refused' },
+      ...(ingest ? { ingest } : {}),
     },
   };
 }
@@ -48,6 +49,16 @@ describe('StatusPage', () => {
     expect(await Promise.all(cards.map((card) => card.getTitleText()))).toEqual(['Web server', 'Database', 'Telemetry broker']);
     expect(await cards[1].getText()).toContain('PostgreSQL 15.18');
     expect(element.querySelector('.banner')?.textContent).toContain('Everything is running.');
+  });
+
+  it('adds the ingest card when the server runs the ingest, with what it stored', async () => {
+    const { fixture, loader, element } = await render();
+    http.expectOne('/api/health').flush(report(true, { state: 'down', latencyMs: null, detail: 'storing readings has failed since 09:58:30 UTC (7 retries)' }));
+    await fixture.whenStable();
+    const cards = await loader.getAllHarnesses(MatCardHarness);
+    expect(await cards[3].getTitleText()).toBe('Reading ingest');
+    expect(await cards[3].getText()).toContain('Down');
+    expect(element.querySelector('[data-component="ingest"]')?.textContent).toContain('failed since 09:58:30 UTC');
   });
 
   it('says what is down when a component is down', async () => {

@@ -18,13 +18,17 @@ interface ComponentRow {
   health: ComponentHealth;
 }
 
-const LABELS: Record<keyof HealthReport['components'], { label: string; icon: string }> = {
+type ComponentKey = keyof HealthReport['components'];
+
+/** In the order the readings travel; the ingest card only where the server runs the ingest. */
+const LABELS: Record<ComponentKey, { label: string; icon: string }> = {
   server: { label: 'Web server', icon: 'dns' },
   database: { label: 'Database', icon: 'storage' },
   broker: { label: 'Telemetry broker', icon: 'sensors' },
+  ingest: { label: 'Reading ingest', icon: 'move_to_inbox' },
 };
 
-/** Server, database and broker status, read from the API and refreshed every 15 s. */
+/** Server, database, broker and ingest status, read from the API and refreshed every 15 s. */
 @Component({
   selector: 'cw-status-page',
   imports: [DatePipe, MatButtonModule, MatCardModule, MatIconModule, MatProgressBarModule],
@@ -66,8 +70,11 @@ export class StatusPage {
 
   private show(report: HealthReport): void {
     this.report.set(report);
-    this.rows.set(
-      (Object.keys(LABELS) as (keyof HealthReport['components'])[]).map((key) => ({ key, ...LABELS[key], health: report.components[key] })),
-    );
+    const rows: ComponentRow[] = [];
+    for (const key of Object.keys(LABELS) as ComponentKey[]) {
+      const health = report.components[key];
+      if (health) rows.push({ key, ...LABELS[key], health });
+    }
+    this.rows.set(rows);
   }
 }
