@@ -98,9 +98,14 @@ export class FleetRunner {
       await Promise.all(this.runs.map((run) => run.link.drain()));
       options.log(`backfill to ${new Date(backfillUntilMs).toISOString()}: ${this.published} readings in ${((Date.now() - started) / 1000).toFixed(1)} s`);
     }
-    this.simNowMs = backfillUntilMs;
+    // After a restart the sensors may be far past the replay's start (the state file says
+    // where they got): the clock starts there, so readings flow at once instead of after
+    // the replay has idled its way up to them.
+    const resumeAtMs = Math.min(...this.runs.map((run) => run.nextAtMs)) - 1;
+    const anchorMs = Math.min(Date.now(), Math.max(backfillUntilMs, resumeAtMs));
+    this.simNowMs = anchorMs;
     this.saveState(true);
-    this.startClock(backfillUntilMs);
+    this.startClock(anchorMs);
   }
 
   async stop(): Promise<void> {

@@ -143,4 +143,31 @@ describe('demo fleet seed step and the fleet runner', () => {
     expect(seqs.n).toBe(published + again);
     expect(seqs.distinct_seqs).toBe(seqs.n);
   }, 60_000);
+
+  it('after a restart, starts the replay where the sensors got rather than idling up to it', async () => {
+    const nowMs = Date.now();
+    const resumedAtMs = nowMs - HOUR_MS;
+    const devices = fleet.devices.slice(0, 2);
+    const runner = new FleetRunner({
+      mqttUrl: `mqtt://127.0.0.1:${broker.port}`,
+      devices,
+      faultsFor: () => [],
+      startMs: nowMs - 6 * HOUR_MS,
+      replayFromMs: nowMs - 6 * HOUR_MS,
+      speed: 60,
+      allowFuture: false,
+      intervalSecondsOverride: null,
+      resume: Object.fromEntries(devices.map((device) => [device.deviceId, { lastAtMs: resumedAtMs, seq: 500 }])),
+      stateFile: null,
+      tickMs: 1000,
+      log: () => undefined,
+    });
+    try {
+      await runner.start();
+      expect(runner.simulatedNowMs).toBeGreaterThanOrEqual(resumedAtMs);
+      expect(runner.simulatedNowMs).toBeLessThan(resumedAtMs + 10 * 60_000);
+    } finally {
+      await runner.stop();
+    }
+  });
 });
