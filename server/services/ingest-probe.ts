@@ -16,8 +16,9 @@ function ago(fromMs: number, nowMs: number): string {
   return `${Math.round(seconds / 3600)} h ago`;
 }
 
-function rejectedTotal(stats: PipelineStats): number {
-  return Object.values(stats.rejected).reduce((sum, n) => sum + (n ?? 0), 0);
+/** Messages that never became a reading; a probe error value is stored (as a flag), so it is not one. */
+function refusedTotal(stats: PipelineStats): number {
+  return Object.entries(stats.rejected).reduce((sum, [reason, n]) => (reason === 'sensor-error-value' ? sum : sum + (n ?? 0)), 0);
 }
 
 /**
@@ -32,11 +33,9 @@ export function describeIngest(stats: PipelineStats & { connected: boolean }, no
     return { state: 'down', latencyMs: null, detail: `storing readings has failed since ${since} UTC (${count(stats.retries)} retries): ${stats.lastError ?? 'unknown error'}; readings wait in the broker` };
   }
   const last = stats.lastCommitAtMs === null ? 'no batch yet' : `last batch ${ago(stats.lastCommitAtMs, nowMs)}`;
-  return {
-    state: 'up',
-    latencyMs: null,
-    detail: `${count(stats.stored)} readings stored since start, ${count(rejectedTotal(stats))} refused, ${count(stats.duplicates)} duplicates skipped; ${last}`,
-  };
+  const flagged = stats.rejected['sensor-error-value'] ?? 0;
+  const stored = `${count(stats.stored)} readings stored since start${flagged ? ` (${count(flagged)} probe error values kept as flags)` : ''}`;
+  return { state: 'up', latencyMs: null, detail: `${stored}, ${count(refusedTotal(stats))} refused, ${count(stats.duplicates)} duplicates skipped; ${last}` };
 }
 
 export function ingestProbe(source: IngestStatsSource, now: () => number = Date.now): ComponentProbe {

@@ -28,6 +28,11 @@ describe('the ingest on the status page', () => {
     expect(describeIngest(stats({ lastCommitAtMs: null, stored: 0 }), NOW_MS).detail).toContain('no batch yet');
   });
 
+  it('counts a probe error value as stored with a flag, not as refused', () => {
+    const detail = describeIngest(stats({ rejected: { 'sensor-error-value': 8, schema: 1 } }), NOW_MS).detail;
+    expect(detail).toBe('1,234 readings stored since start (8 probe error values kept as flags), 1 refused, 50 duplicates skipped; last batch 4 s ago');
+  });
+
   it('is down while cut off from the broker', () => {
     expect(describeIngest(stats({ connected: false }), NOW_MS)).toEqual(jasmine.objectContaining({ state: 'down', detail: jasmine.stringMatching(/^not connected to the broker/) }));
   });
