@@ -13,11 +13,9 @@
  * BENCH_READINGS changes the run length (default 100,000 per throughput phase), BENCH_WINDOW
  * the unacknowledged publishes per sensor (default 8), BENCH_SKIP_HISTORY=1 skips part 4.
  */
-import { spawn, type ChildProcessWithoutNullStreams } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import readline from 'node:readline';
 import mqtt from 'mqtt';
 import { Pool } from 'pg';
 import { freePort, nodeArgsFor, startProcess, tcpOpen, waitFor, type ManagedProcess } from '../../broker/cluster/processes';
@@ -26,6 +24,7 @@ import { insertReadings, type StoredReading } from '../../server/ingest/store';
 import type { IngestWorker } from '../../server/ingest/worker';
 import { HistoryService } from '../../server/telemetry/history-service';
 import { createTestDatabase, type TestDatabase } from '../support/test-db';
+import { startPublisher, type Publisher } from './support/publisher';
 import { TEST_INGEST, createDevice, createPlacement, ingestConfig, sleep, testWorker, type TestDevice } from '../telemetry/support/telemetry-fixture';
 
 const READINGS = Number(process.env.BENCH_READINGS ?? 100_000);
@@ -39,32 +38,7 @@ const NOTES_FILE = path.join(__dirname, '..', '..', '.data', 'bench', 'ingest-be
 const DAY_MS = 86_400_000;
 /** BENCH_PROFILE_DIR=dir writes CPU profiles of the broker and publisher processes there. */
 const PROFILE_ARGS = process.env.BENCH_PROFILE_DIR ? ['--cpu-prof', `--cpu-prof-dir=${process.env.BENCH_PROFILE_DIR}`] : [];
-
-interface Publisher {
-  run(run: Record<string, unknown>): Promise<{ publishMs: number }>;
-  stop(): void;
-}
-
-async function startPublisher(url: string, devices: TestDevice[]): Promise<Publisher> {
-  const config = JSON.stringify({ url, devices: devices.map(({ deviceId, secret }) => ({ deviceId, secret })) });
-  const child: ChildProcessWithoutNullStreams = spawn(process.execPath, [...PROFILE_ARGS, '--import', 'tsx', path.join(__dirname, 'ingest-publisher.ts'), config], {
-    env: { ...process.env, TSX_TSCONFIG_PATH: path.join(__dirname, '..', '..', 'server', 'tsconfig.json') },
-  });
-  child.stderr.on('data', (chunk) => process.stderr.write(chunk));
-  const lines = readline.createInterface({ input: child.stdout });
-  const waiting: ((line: string) => void)[] = [];
-  lines.on('line', (line) => waiting.shift()?.(line));
-  const next = () => new Promise<string>((resolve) => waiting.push(resolve));
-  if ((await next()) !== 'ready') throw new Error('publisher did not start');
-  return {
-    async run(run) {
-      const reply = next();
-      child.stdin.write(`go ${JSON.stringify({ window: WINDOW_PER_DEVICE, ratePerS: null, timestamps: 'sequence', baseMs: 0, stepMs: 1000, firstSeq: 0, ...run })}\n`);
-      return JSON.parse((await reply).slice('done '.length));
-    },
-    stop: () => child.stdin.end('quit\n'),
-  };
-}
+const publisherOptions = { window: WINDOW_PER_DEVICE, nodeArgs: PROFILE_ARGS };
 
 /** 0. Calibration: plain aedes, one publisher with 100 in flight, one subscriber. */
 async function plainAedes(): Promise<number> {
@@ -202,7 +176,7 @@ async function main(): Promise<void> {
     processes.push(broker);
     await waitFor('starting', broker, () => tcpOpen(port));
     const url = `mqtt://127.0.0.1:${port}`;
-    publisher = await startPublisher(url, devices);
+    publisher = await startPublisher(devices.map((device) => ({ ...device, url })), publisherOptions);
 
     const baseMs = Date.now() - 30 * DAY_MS;
     const brokerPerS = await brokerOnly(url, publisher, baseMs);

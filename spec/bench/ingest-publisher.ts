@@ -15,6 +15,8 @@ import { readingTopic } from '../../shared/telemetry';
 interface Device {
   deviceId: string;
   secret: string;
+  /** The broker this sensor signs in to (the clustered benchmark spreads them over two). */
+  url: string;
 }
 
 interface Run {
@@ -39,8 +41,8 @@ interface Link {
 
 const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
 
-async function open(url: string, device: Device): Promise<Link> {
-  const client = await mqtt.connectAsync(url, { clientId: device.deviceId, username: device.deviceId, password: device.secret, protocolVersion: 4, reconnectPeriod: 0, keepalive: 120 });
+async function open(device: Device): Promise<Link> {
+  const client = await mqtt.connectAsync(device.url, { clientId: device.deviceId, username: device.deviceId, password: device.secret, protocolVersion: 4, reconnectPeriod: 0, keepalive: 120 });
   return { client, topic: readingTopic(device.deviceId), deviceId: device.deviceId, inFlight: 0, waiters: [], lastAtMs: 0 };
 }
 
@@ -83,8 +85,8 @@ async function publishRun(links: Link[], run: Run): Promise<{ publishMs: number 
 }
 
 async function main(): Promise<void> {
-  const { url, devices } = JSON.parse(process.argv[2]) as { url: string; devices: Device[] };
-  const links = await Promise.all(devices.map((device) => open(url, device)));
+  const { devices } = JSON.parse(process.argv[2]) as { devices: Device[] };
+  const links = await Promise.all(devices.map((device) => open(device)));
   process.stdout.write('ready\n');
   const lines = readline.createInterface({ input: process.stdin });
   for await (const line of lines) {
