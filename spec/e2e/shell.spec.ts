@@ -23,6 +23,8 @@ describe('the served app shell', () => {
     expect(await page.locator('.brand-name').textContent()).toBe('Chillwarden');
     await page.locator('[data-component="database"] .state').getByText('Up').waitFor();
     expect(await page.locator('[data-component="server"] .state').textContent()).toBe('Up');
+    // The stack's server runs the ingest, so its card is there and connected to the broker.
+    await page.locator('[data-component="ingest"] .state').getByText('Up').waitFor();
     expect(await page.getByRole('link', { name: 'Sign in' }).count()).toBeGreaterThan(0);
     expect(await page.title()).toBe('System status · Chillwarden');
     expect(await accessibilityViolations(page)).withContext('axe-core on the status page').toEqual([]);
