@@ -22,8 +22,27 @@ interface AxeViolation {
 const RUN_AXE = `window.axe.run(document, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'] }, resultTypes: ['violations'] })
   .then((result) => result.violations.map((v) => ({ id: v.id, impact: v.impact, help: v.help, nodes: v.nodes.map((n) => ({ target: n.target.map(String), html: n.html.slice(0, 160) })) })))`;
 
+/**
+ * Waits (up to 2 s) until no finite CSS transition or animation is running. axe reads
+ * colours as they are at that instant: just after a click, a button's ripple still lies
+ * over it, and measured then its label fails the contrast rule. One transition may start
+ * another (a ripple grows, then fades), hence the loop. Endless animations (a progress
+ * bar, a spinner) are left running.
+ */
+const SETTLE_ANIMATIONS = `(async () => {
+  const deadline = Date.now() + 2000;
+  const finite = (animation) => Number.isFinite(animation.effect?.getComputedTiming().endTime ?? Infinity);
+  for (;;) {
+    const running = document.getAnimations().filter(finite);
+    if (!running.length || Date.now() > deadline) return;
+    await Promise.race([Promise.all(running.map((animation) => animation.finished.catch(() => undefined))), new Promise((resolve) => setTimeout(resolve, 250))]);
+    await new Promise((resolve) => requestAnimationFrame(() => resolve()));
+  }
+})()`;
+
 /** One line per serious or critical violation: the rule, what it asks, the first few elements. */
 export async function accessibilityViolations(page: Page): Promise<string[]> {
+  await page.evaluate(SETTLE_ANIMATIONS);
   const loaded = await page.evaluate('typeof window.axe');
   if (loaded !== 'object') await page.evaluate(AXE_SOURCE);
   const violations = (await page.evaluate(RUN_AXE)) as AxeViolation[];
