@@ -4,7 +4,11 @@ import { TestBed } from '@angular/core/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { MatNavListHarness } from '@angular/material/list/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
-import { provideRouter } from '@angular/router';
+import { BreakpointObserver } from '@angular/cdk/layout';
+import { Component } from '@angular/core';
+import { MatSidenavHarness } from '@angular/material/sidenav/testing';
+import { Router, provideRouter } from '@angular/router';
+import { of } from 'rxjs';
 import type { SessionUser } from '../../../../shared/api/session';
 import { Session } from '../auth/session';
 import { ThemeService } from '../theme/theme';
@@ -21,6 +25,9 @@ const admin: SessionUser = {
   temperatureUnit: 'C',
   timeZone: null,
 };
+
+@Component({ template: 'page' })
+class SomePage {}
 
 describe('Shell', () => {
   beforeEach(() => {
@@ -59,5 +66,59 @@ describe('Shell', () => {
     expect(theme.scheme()).not.toBe(before);
     expect(document.documentElement.classList.contains('cw-dark')).toBe(theme.scheme() === 'dark');
     theme.toggle();
+  });
+
+  describe('on a phone', () => {
+    let releaseSlowPage: ((allowed: boolean) => void) | undefined;
+
+    beforeEach(() => {
+      releaseSlowPage = undefined;
+      TestBed.resetTestingModule();
+      TestBed.configureTestingModule({
+        providers: [
+          provideRouter([
+            { path: 'page', component: SomePage },
+            { path: 'slow', component: SomePage, canActivate: [() => new Promise<boolean>((resolve) => (releaseSlowPage = resolve))] },
+          ]),
+          provideHttpClient(),
+          provideHttpClientTesting(),
+          { provide: BreakpointObserver, useValue: { observe: () => of({ matches: true, breakpoints: {} }) } },
+        ],
+      });
+      TestBed.inject(Session).set(admin);
+    });
+
+    async function openDrawer() {
+      const fixture = TestBed.createComponent(Shell);
+      const loader = TestbedHarnessEnvironment.loader(fixture);
+      const drawer = await loader.getHarness(MatSidenavHarness);
+      expect(await drawer.isOpen()).toBeFalse();
+      await (await loader.getHarness(MatButtonHarness.with({ selector: '[aria-label="Open navigation"]' }))).click();
+      expect(await drawer.isOpen()).toBeTrue();
+      return { fixture, drawer };
+    }
+
+    it('closes the drawer once the page chosen in it has loaded', async () => {
+      const { fixture, drawer } = await openDrawer();
+      await TestBed.inject(Router).navigateByUrl('/page');
+      await fixture.whenStable();
+      expect(await drawer.isOpen()).toBeFalse();
+    });
+
+    it('keeps a drawer open that was opened while a page was still loading', async () => {
+      const fixture = TestBed.createComponent(Shell);
+      fixture.detectChanges();
+      const navigation = TestBed.inject(Router).navigateByUrl('/slow');
+      while (!releaseSlowPage) await new Promise((resolve) => setTimeout(resolve));
+      // No harness until the page is let through: harnesses wait for the pending navigation.
+      const menu = (fixture.nativeElement as HTMLElement).querySelector<HTMLButtonElement>('[aria-label="Open navigation"]')!;
+      menu.click();
+      fixture.detectChanges();
+      expect(menu.getAttribute('aria-expanded')).toBe('true');
+      releaseSlowPage(true);
+      expect(await navigation).toBeTrue();
+      const drawer = await TestbedHarnessEnvironment.loader(fixture).getHarness(MatSidenavHarness);
+      expect(await drawer.isOpen()).toBeTrue();
+    });
   });
 });

@@ -1,6 +1,6 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
-import { toSignal } from '@angular/core/rxjs-interop';
+import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatListModule } from '@angular/material/list';
@@ -8,8 +8,8 @@ import { MatMenuModule } from '@angular/material/menu';
 import { MatSidenavModule } from '@angular/material/sidenav';
 import { MatToolbarModule } from '@angular/material/toolbar';
 import { MatTooltipModule } from '@angular/material/tooltip';
-import { NavigationEnd, Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
-import { filter, map } from 'rxjs';
+import { NavigationEnd, NavigationStart, Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { map } from 'rxjs';
 import { Session } from '../auth/session';
 import { ThemeService } from '../theme/theme';
 import { navSectionsFor } from './nav-items';
@@ -56,8 +56,13 @@ export class Shell {
   );
 
   constructor() {
-    // On a phone the drawer closes once a page is chosen.
-    this.router.events.pipe(filter((event) => event instanceof NavigationEnd)).subscribe(() => this.navOpen.set(false));
+    // On a phone the drawer closes once the page chosen in it has loaded. A drawer opened
+    // while a page was still loading (the first page, on a slow phone) stays open.
+    let openWhenStarted = false;
+    this.router.events.pipe(takeUntilDestroyed()).subscribe((event) => {
+      if (event instanceof NavigationStart) openWhenStarted = this.navOpen();
+      if (event instanceof NavigationEnd && openWhenStarted) this.navOpen.set(false);
+    });
   }
 
   protected toggleNav(): void {
