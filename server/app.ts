@@ -12,7 +12,7 @@ import { systemClock } from './auth/clock';
 import type { AppConfig } from './config';
 import { EventBus } from './events/bus';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
-import { healthRouter } from './routes/health';
+import { healthHandlers } from './routes/health';
 import { createInventory } from './routes/inventory';
 import { webAppRoutes, type WebAppRouteDeps } from './routes/web-app';
 import { HealthService, databaseProbe, type ComponentProbe } from './services/health';
@@ -100,18 +100,19 @@ export function createApp(deps: AppDeps): Express {
   // Every route is mounted through the route table, which records its access rule.
   const routes = new RouteTable();
   const health = new HealthService(deps.version, { database: databaseProbe(deps.dataSource), broker: deps.brokerProbe, ingest: deps.ingestProbe });
-  // The health router answers both paths; each is declared so the table lists it.
-  const healthApi = healthRouter(health);
+  // Before the session middleware, so load balancers' polls never touch the session store.
+  const healthApi = healthHandlers(health);
   routes.mount(
     app,
     new RouteGroup('/api/health')
-      .get('/', { access: 'public', scope: 'none', summary: 'component health report' }, healthApi)
-      .get('/ready', { access: 'public', scope: 'none', summary: 'readiness: 503 while a component is down' }, healthApi),
+      .get('/', { access: 'public', scope: 'none', summary: 'component states' }, healthApi.report)
+      .get('/ready', { access: 'public', scope: 'none', summary: 'readiness: 503 while a component is down' }, healthApi.ready),
   );
 
   const accounts = createAccounts({ config, dataSource: deps.dataSource, logger, options: deps.accounts });
   app.use('/api', ...accounts.middleware);
   routes.mount(app, ...accounts.routes);
+  routes.mount(app, new RouteGroup('/api/health').get('/details', { access: ['manager'], scope: 'none', summary: 'component health with versions and error details' }, healthApi.details));
   routes.mount(app, ...createInventory({ dataSource: deps.dataSource, logger }).routes);
   if (deps.workOrders) routes.mount(app, ...deps.workOrders.routes);
 

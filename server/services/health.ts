@@ -32,6 +32,14 @@ export function databaseProbe(dataSource: DataSource): ComponentProbe {
     });
 }
 
+/** The report as anyone may see it: each component's state, none of the details. */
+export function withoutDetails(report: HealthReport): HealthReport {
+  const components = Object.fromEntries(
+    Object.entries(report.components).map(([key, component]) => [key, { state: component.state, latencyMs: null, detail: '' }]),
+  ) as unknown as HealthReport['components'];
+  return { ...report, components };
+}
+
 export class HealthService {
   private readonly startedAt = new Date();
 

@@ -54,6 +54,7 @@ function casesFor(f: Fixtures, messageId: string): Record<string, MatrixCase> {
   return {
     'GET /api/health': { ok: 200 },
     'GET /api/health/ready': { ok: 200 },
+    'GET /api/health/details': { ok: 200 },
     'GET /api/auth/session': { ok: 200 },
     'POST /api/auth/sign-in': { body: { email: 'nobody@example.com', password: 'not a password' }, ok: 401 },
     'POST /api/auth/sign-out': { ok: 204 },

@@ -2,7 +2,7 @@ import pino from 'pino';
 import request from 'supertest';
 import { createApp } from '../../server/app';
 import { loadConfig } from '../../server/config';
-import { probe } from '../../server/services/health';
+import { HealthService, databaseProbe, probe } from '../../server/services/health';
 import { createTestDatabase, type TestDatabase } from '../support/test-db';
 
 describe('GET /api/health', () => {
@@ -34,15 +34,27 @@ describe('GET /api/health', () => {
     expect(res.body.status).toBe('ok');
     expect(res.body.version).toBe('9.9.9');
     expect(res.body.components.database.state).toBe('up');
-    expect(res.body.components.database.detail).toMatch(/^PostgreSQL \d+/);
     expect(res.body.components.broker.state).toBe('up');
   });
 
-  it('reports degraded and names the reason when the broker is unreachable', async () => {
+  it('tells anyone only the states; versions and error messages are for managers', async () => {
     brokerUp = false;
     const res = await request(appWith()).get('/api/health').expect(200);
     expect(res.body.status).toBe('degraded');
-    expect(res.body.components.broker).toEqual(jasmine.objectContaining({ state: 'down', detail: 'connection refused' }));
+    expect(res.body.components.broker).toEqual({ state: 'down', latencyMs: null, detail: '' });
+    expect(res.body.components.database).toEqual({ state: 'up', latencyMs: null, detail: '' });
+    expect(JSON.stringify(res.body)).not.toContain('PostgreSQL');
+    expect((await request(appWith()).get('/api/health/details').expect(401)).body.error).toBeDefined();
+    brokerUp = true;
+  });
+
+  it('gives the details (what is running, why a component is down) in the full report', async () => {
+    const health = new HealthService('9.9.9', { database: databaseProbe(db.dataSource), broker: () => probe(async () => { throw new Error('connection refused'); }) });
+    const report = await health.report();
+    expect(report.status).toBe('degraded');
+    expect(report.components.database.detail).toMatch(/^PostgreSQL \d+/);
+    expect(report.components.broker).toEqual({ state: 'down', latencyMs: null, detail: 'connection refused' });
+    expect(report.components.server.detail).toContain(process.version);
   });
 
   it('answers the readiness check with 503 while a component is down and 200 when all are up', async () => {
@@ -59,7 +71,7 @@ describe('GET /api/health', () => {
     ingestUp = false;
     const res = await request(appWith()).get('/api/health').expect(200);
     expect(res.body.status).toBe('degraded');
-    expect(res.body.components.ingest).toEqual({ state: 'down', latencyMs: null, detail: 'not connected to the broker' });
+    expect(res.body.components.ingest).toEqual({ state: 'down', latencyMs: null, detail: '' });
     await request(appWith()).get('/api/health/ready').expect(503);
     ingestUp = true;
     expect((await request(appWith()).get('/api/health').expect(200)).body.status).toBe('ok');

@@ -5,6 +5,8 @@ import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatCardHarness } from '@angular/material/card/testing';
 import type { HealthReport } from '../../../shared/api/health';
+import type { SessionUser } from '../../../shared/api/session';
+import { Session } from '../core/auth/session';
 import { apiErrorInterceptor } from '../core/http/api-error.interceptor';
 import { StatusPage } from './status-page';
 
@@ -23,6 +25,18 @@ function report(brokerUp: boolean, ingest?: HealthReport['components']['ingest']
   };
 }
 
+const manager: SessionUser = {
+  id: 'm1',
+  email: 'manager@example.com',
+  displayName: 'Mo Manager',
+  role: 'manager',
+  isAdmin: false,
+  organizationId: 'o1',
+  unitId: null,
+  temperatureUnit: 'C',
+  timeZone: null,
+};
+
 describe('StatusPage', () => {
   let http: HttpTestingController;
 
@@ -31,6 +45,7 @@ describe('StatusPage', () => {
       providers: [provideHttpClient(withInterceptors([apiErrorInterceptor])), provideHttpClientTesting()],
     });
     http = TestBed.inject(HttpTestingController);
+    TestBed.inject(Session).set(manager);
   });
 
   afterEach(() => http.verify());
@@ -43,7 +58,7 @@ describe('StatusPage', () => {
 
   it('shows one card per component with its state and detail', async () => {
     const { fixture, loader, element } = await render();
-    http.expectOne('/api/health').flush(report(true));
+    http.expectOne('/api/health/details').flush(report(true));
     await fixture.whenStable();
     const cards = await loader.getAllHarnesses(MatCardHarness);
     expect(await Promise.all(cards.map((card) => card.getTitleText()))).toEqual(['Web server', 'Database', 'Telemetry broker']);
@@ -53,7 +68,7 @@ describe('StatusPage', () => {
 
   it('adds the ingest card when the server runs the ingest, with what it stored', async () => {
     const { fixture, loader, element } = await render();
-    http.expectOne('/api/health').flush(report(true, { state: 'down', latencyMs: null, detail: 'storing readings has failed since 09:58:30 UTC (7 retries)' }));
+    http.expectOne('/api/health/details').flush(report(true, { state: 'down', latencyMs: null, detail: 'storing readings has failed since 09:58:30 UTC (7 retries)' }));
     await fixture.whenStable();
     const cards = await loader.getAllHarnesses(MatCardHarness);
     expect(await cards[3].getTitleText()).toBe('Reading ingest');
@@ -63,7 +78,7 @@ describe('StatusPage', () => {
 
   it('says what is down when a component is down', async () => {
     const { fixture, element } = await render();
-    http.expectOne('/api/health').flush(report(false));
+    http.expectOne('/api/health/details').flush(report(false));
     await fixture.whenStable();
     expect(element.querySelector('.banner.down')?.textContent).toContain('Something is down');
     expect(element.querySelector('[data-component="broker"]')?.textContent).toContain('connection refused');
@@ -71,13 +86,25 @@ describe('StatusPage', () => {
 
   it('says the server cannot be reached when the request fails outright, and checks again on demand', async () => {
     const { fixture, loader, element } = await render();
-    http.expectOne('/api/health').error(new ProgressEvent('error'), { status: 0 });
+    http.expectOne('/api/health/details').error(new ProgressEvent('error'), { status: 0 });
     await fixture.whenStable();
     expect(element.querySelector('[role="alert"]')?.textContent).toContain('The server cannot be reached');
     const button = await loader.getHarness(MatButtonHarness.with({ text: /Check now/ }));
     await button.click();
-    http.expectOne('/api/health').flush(report(true));
+    http.expectOne('/api/health/details').flush(report(true));
     await fixture.whenStable();
     expect(element.querySelector('[role="alert"]')).toBeNull();
+  });
+
+  it('asks for the states only when the visitor is not a manager, and shows no detail lines', async () => {
+    TestBed.inject(Session).set(null);
+    const { fixture, loader, element } = await render();
+    const states = report(false);
+    for (const component of Object.values(states.components)) component.detail = '';
+    http.expectOne('/api/health').flush(states);
+    await fixture.whenStable();
+    expect((await loader.getAllHarnesses(MatCardHarness)).length).toBe(3);
+    expect(element.querySelectorAll('.detail').length).toBe(0);
+    expect(element.querySelector('[data-component="broker"] .state')?.textContent).toBe('Down');
   });
 });

@@ -7,6 +7,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Subject, catchError, interval, map, merge, of, startWith, switchMap, tap } from 'rxjs';
 import type { ComponentHealth, HealthReport } from '../../../shared/api/health';
+import { Session } from '../core/auth/session';
 import { HealthApi } from './health-api';
 
 export const STATUS_REFRESH_MS = 15_000;
@@ -38,6 +39,8 @@ const LABELS: Record<ComponentKey, { label: string; icon: string }> = {
 })
 export class StatusPage {
   private readonly api = inject(HealthApi);
+  /** Managers see what runs and why a part is down; everyone else the states. */
+  private readonly withDetails = inject(Session).user()?.role === 'manager';
   private readonly refreshNow = new Subject<void>();
 
   protected readonly report = signal<HealthReport | null>(null);
@@ -50,7 +53,7 @@ export class StatusPage {
       .pipe(
         tap(() => this.loading.set(true)),
         switchMap(() =>
-          this.api.report().pipe(
+          this.api.report(this.withDetails).pipe(
             map((report) => ({ report, error: null as string | null })),
             catchError((error: Error) => of({ report: null, error: error.message })),
           ),
