@@ -1,13 +1,7 @@
-/**
- * Sensor liveness: a sensor that has not reported for longer than this many of its own
- * intervals is `silent` (issue: "longer than 3 of its intervals").
- */
-export const SILENT_AFTER_INTERVALS = 3;
+import { SILENT_AFTER_INTERVALS } from '../../shared/api/telemetry';
 
-export function isSilent(lastSeenAtMs: number | null, intervalSeconds: number, nowMs: number): boolean {
-  if (lastSeenAtMs === null) return true;
-  return nowMs - lastSeenAtMs > SILENT_AFTER_INTERVALS * intervalSeconds * 1000;
-}
+// The rule lives in shared/ so the web app's sensor page judges a sensor the same way.
+export { SILENT_AFTER_INTERVALS, isSilent } from '../../shared/api/telemetry';
 
 /** The same rule in SQL, for lists: `WHERE ${silentSql('s')}` over a sensor alias. */
 export function silentSql(sensorAlias: string): string {

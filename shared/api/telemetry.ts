@@ -26,6 +26,17 @@ export const REJECT_REASONS = {
 } as const;
 export type RejectReason = keyof typeof REJECT_REASONS;
 
+/**
+ * Sensor liveness: a sensor that has not reported for longer than this many of its own
+ * intervals is `silent` (issue: "longer than 3 of its intervals").
+ */
+export const SILENT_AFTER_INTERVALS = 3;
+
+export function isSilent(lastSeenAtMs: number | null, intervalSeconds: number, nowMs: number): boolean {
+  if (lastSeenAtMs === null) return true;
+  return nowMs - lastSeenAtMs > SILENT_AFTER_INTERVALS * intervalSeconds * 1000;
+}
+
 export interface TelemetryRejectView {
   at: string;
   source: 'broker' | 'ingest';

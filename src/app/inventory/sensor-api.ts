@@ -2,9 +2,10 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
 import type { Page, SensorChange, SensorCredentials, SensorQueryInput, SensorView } from '../../../shared/api/inventory';
+import type { SensorRejectsView } from '../../../shared/api/telemetry';
 import { toParams } from './http-params';
 
-/** `/api/inventory/sensors`: the organization's sensors. */
+/** `/api/inventory/sensors`: the organization's sensors; `/api/sensors/:id/rejects`: what the broker and ingest refused of one. */
 @Injectable({ providedIn: 'root' })
 export class SensorApi {
   private readonly http = inject(HttpClient);
@@ -12,6 +13,14 @@ export class SensorApi {
 
   list(query: SensorQueryInput): Observable<Page<SensorView>> {
     return this.http.get<Page<SensorView>>(this.base, { params: toParams(query) });
+  }
+
+  get(sensorId: string): Observable<SensorView> {
+    return this.http.get<SensorView>(`${this.base}/${sensorId}`);
+  }
+
+  rejects(sensorId: string): Observable<SensorRejectsView> {
+    return this.http.get<SensorRejectsView>(`/api/sensors/${sensorId}/rejects`);
   }
 
   change(sensorId: string, change: SensorChange): Observable<SensorView> {
