@@ -3,7 +3,7 @@ import sharp from 'sharp';
 import { DEMO_ACCOUNTS } from '../../seeds/demo-accounts';
 import type { FleetOverview } from '../../shared/api/fleet';
 import { accessibilityViolations } from './support/accessibility';
-import { BASE_URL, openPage, screenshot, type WatchedPage } from './support/browser';
+import { BASE_URL, openPage, screenshot, waitInPage, type WatchedPage } from './support/browser';
 
 /**
  * The newcomer's path on the seeded demo, as the README tells it: the manager watches the
@@ -70,15 +70,16 @@ describe('the newcomer path on the seeded demo', () => {
       await expectAccessible(page, 'the appliance page');
       await screenshot(page, 'manager-appliance-fault');
 
-      workOrderId = await page.waitForFunction(
+      workOrderId = await waitInPage(
+        page,
         async (id) => {
           const list = await fetch('/api/work-orders?status=open').then((res) => res.json());
           const job = list.items.find((item: { applianceId?: string; appliance?: { id: string } }) => (item.applianceId ?? item.appliance?.id) === id);
-          return job ? job.id : null;
+          return job ? (job.id as string) : null;
         },
         applianceId,
-        { timeout: STORY_TIMEOUT_MS, polling: 2000 },
-      ).then((handle) => handle.jsonValue() as Promise<string>);
+        { timeoutMs: STORY_TIMEOUT_MS, pollMs: 2000, what: "the fan job's work order" },
+      );
       await page.goto(`${BASE_URL}/work-orders`);
       await page.locator(`a[href="/work-orders/${workOrderId}"]`).first().waitFor();
       await expectAccessible(page, 'the work-order table');
@@ -90,6 +91,23 @@ describe('the newcomer path on the seeded demo', () => {
       await page.locator('cw-past-life-table a[href^="/appliances/"]').first().waitFor();
       await expectAccessible(page, 'the reports');
       await screenshot(page, 'manager-reports');
+
+      // 502's freezer probe reports its disconnected value: the sensor's page counts it.
+      const sensorId = await page.evaluate(async () => {
+        const list = await fetch('/api/inventory/sensors?q=502').then((res) => res.json());
+        return (list.items as { id: string; unitLabel: string; propertyName: string }[]).find((s) => s.unitLabel === '502' && s.propertyName === 'Harrowgate Commons')?.id ?? null;
+      });
+      expect(sensorId).withContext('the sensor of 502 at Harrowgate Commons').not.toBeNull();
+      await waitInPage(
+        page,
+        async (id) => ((await fetch(`/api/sensors/${id}/rejects`).then((res) => res.json())).countsByReason['sensor-error-value'] ?? 0) > 0,
+        sensorId,
+        { timeoutMs: STORY_TIMEOUT_MS, pollMs: 2000, what: "502's probe error value among its rejects" },
+      );
+      await page.goto(`${BASE_URL}/inventory/sensors/${sensorId}`);
+      await page.locator('.latest .reason', { hasText: 'sensor-error-value' }).first().waitFor();
+      await expectAccessible(page, 'the sensor page');
+      await screenshot(page, 'manager-sensor');
       expectClean(watched);
     } finally {
       await watched.close();
@@ -150,10 +168,12 @@ describe('the newcomer path on the seeded demo', () => {
       await page.getByRole('option', { name: 'Evaporator fan motor stopped' }).click();
       await dialog.getByLabel('Findings').fill('Fan motor seized; replaced it and checked the blade turns freely.');
       await dialog.getByRole('button', { name: 'Complete', exact: true }).click();
-      await page.waitForFunction(
-        async (id) => (await fetch(`/api/work-orders/${id}`).then((res) => res.json())).state === 'completed',
+      // Completed, or already verified by the telemetry that follows the repair.
+      await waitInPage(
+        page,
+        async (id) => ['completed', 'verified'].includes((await fetch(`/api/work-orders/${id}`).then((res) => res.json())).state),
         workOrderId,
-        { timeout: 30_000, polling: 500 },
+        { timeoutMs: 30_000, pollMs: 500, what: 'the job to be completed' },
       );
       expectClean(watched);
     } finally {

@@ -65,3 +65,18 @@ export async function screenshot(page: Page, name: string): Promise<string> {
   await page.screenshot({ path: file, fullPage: false });
   return file;
 }
+
+/**
+ * Polls `check` in the page until it gives a truthy value, and returns that value. Unlike
+ * page.waitForFunction, an async check is awaited: waitForFunction takes the Promise an
+ * async function returns for a truthy answer and resolves at once.
+ */
+export async function waitInPage<A, R>(page: Page, check: (arg: A) => Promise<R> | R, arg: A, options: { timeoutMs: number; pollMs: number; what: string }): Promise<NonNullable<R>> {
+  const deadline = Date.now() + options.timeoutMs;
+  for (;;) {
+    const value = await page.evaluate(check as (arg: A) => Promise<R>, arg);
+    if (value) return value as NonNullable<R>;
+    if (Date.now() > deadline) throw new Error(`timed out after ${options.timeoutMs / 1000} s waiting for ${options.what}`);
+    await page.waitForTimeout(options.pollMs);
+  }
+}
