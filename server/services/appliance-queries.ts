@@ -49,11 +49,11 @@ export async function applianceRow(db: DataSource, applianceId: string): Promise
 }
 
 export async function sensorsOf(db: DataSource, applianceId: string): Promise<ApplianceSensorView[]> {
-  const rows: { device_id: string; interval_seconds: number; last_seen_at: Date | null }[] = await db.query(
-    `SELECT device_id, interval_seconds, last_seen_at FROM sensor WHERE appliance_id = $1 AND archived_at IS NULL ORDER BY device_id`,
+  const rows: { id: string; device_id: string; interval_seconds: number; last_seen_at: Date | null }[] = await db.query(
+    `SELECT id, device_id, interval_seconds, last_seen_at FROM sensor WHERE appliance_id = $1 AND archived_at IS NULL ORDER BY device_id`,
     [applianceId],
   );
-  return rows.map((row) => ({ deviceId: row.device_id, intervalSeconds: row.interval_seconds, lastSeenAt: iso(row.last_seen_at) }));
+  return rows.map((row) => ({ id: row.id, deviceId: row.device_id, intervalSeconds: row.interval_seconds, lastSeenAt: iso(row.last_seen_at) }));
 }
 
 function findingViewOf(row: Record<string, unknown>): FindingView {

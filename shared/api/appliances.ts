@@ -23,6 +23,8 @@ export interface AppliancePlace {
 }
 
 export interface ApplianceSensorView {
+  /** For the link to the sensor's page (Inventory → Sensors). */
+  id: string;
   deviceId: string;
   intervalSeconds: number;
   lastSeenAt: string | null;

@@ -77,6 +77,9 @@ describe('GET /api/appliances/:id', () => {
     expect(body.underWarranty).toBeFalse();
     expect(body.place).toEqual(jasmine.objectContaining({ propertyName: 'Birch Court', unitLabel: '4B', timeZone: 'America/New_York', address: '12 Example Avenue, Riverton IL 60000' }));
     expect(body.sensors.map((s) => s.deviceId)).toEqual(['cw-birch-4b']);
+    // The id the appliance page links the sensor's page with.
+    const [sensor] = await world.db.dataSource.query(`SELECT id FROM sensor WHERE device_id = 'cw-birch-4b'`);
+    expect(body.sensors[0].id).toBe(sensor.id);
   });
 
   it('puts the age against the expected life of a refrigerator', async () => {

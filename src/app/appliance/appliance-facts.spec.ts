@@ -1,5 +1,6 @@
 import { Component, signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
+import { provideRouter } from '@angular/router';
 import type { ApplianceDetail } from '../../../shared/api/appliances';
 import type { TemperatureUnit } from '../../../shared/temperature';
 import { ApplianceFacts } from './appliance-facts';
@@ -15,6 +16,8 @@ class Host {
 }
 
 describe('ApplianceFacts', () => {
+  beforeEach(() => TestBed.configureTestingModule({ providers: [provideRouter([])] }));
+
   async function render(detail = sampleDetail(), unit: TemperatureUnit = 'F') {
     const fixture = TestBed.createComponent(Host);
     fixture.componentInstance.detail.set(detail);
@@ -24,7 +27,9 @@ describe('ApplianceFacts', () => {
   }
 
   it('lists model, serial, install date, warranty and sensor', async () => {
-    const text = (await render()).querySelector('.facts')?.textContent ?? '';
+    const element = await render();
+    expect(element.querySelector('.sensor a')?.getAttribute('href')).toBe('/inventory/sensors/s-birch-4b');
+    const text = element.querySelector('.facts')?.textContent ?? '';
     expect(text).toContain('TF-18 (demo)');
     expect(text).toContain('SN-0042');
     expect(text).toContain('Mar 2, 2018');

@@ -8,6 +8,7 @@ import { formatTemperature, type TemperatureUnit } from '../../../shared/tempera
 import { PROBE_LABELS, STYLE_LABELS } from '../fleet/appliance-words';
 import { ZonedDatePipe } from '../fleet/zoned-date';
 import { formatMoney } from './money';
+import { RouterLink } from '@angular/router';
 
 const VERDICT_WORDS: Record<RepairVerdict, string> = {
   repair: 'Repair',
@@ -26,7 +27,7 @@ function formatSpread(spreadC: number | null, unit: TemperatureUnit): string {
 /** The appliance's particulars, its age against its expected life, the repair-or-replace rule of thumb and its learned normal. */
 @Component({
   selector: 'cw-appliance-facts',
-  imports: [DecimalPipe, MatCardModule, MatIconModule, ZonedDatePipe],
+  imports: [DecimalPipe, MatCardModule, MatIconModule, RouterLink, ZonedDatePipe],
   templateUrl: './appliance-facts.html',
   styleUrl: './appliance-facts.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

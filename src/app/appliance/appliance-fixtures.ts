@@ -20,7 +20,7 @@ export function sampleDetail(extra: Partial<ApplianceDetail> = {}): ApplianceDet
   return {
     id: 'a1', style: 'top-freezer', model: 'TF-18 (demo)', serial: 'SN-0042', installedOn: '2018-03-02', warrantyEndsOn: '2019-03-02', underWarranty: false, archivedAt: null,
     place: { organizationId: 'o1', propertyId: 'p1', propertyName: 'Birch Court', address: '12 Example Avenue, Riverton IL 60000', timeZone: 'America/New_York', unitId: 'u1', unitLabel: '4B' },
-    sensors: [{ deviceId: 'cw-birch-4b', intervalSeconds: 300, lastSeenAt: '2026-03-02T14:55:00.000Z' }],
+    sensors: [{ id: 's-birch-4b', deviceId: 'cw-birch-4b', intervalSeconds: 300, lastSeenAt: '2026-03-02T14:55:00.000Z' }],
     life: { lifeClass: 'refrigerator', expectedYears: 13, ageYears: 8, lifeFraction: 0.62, source: 'NAHB / Bank of America Home Equity, Study of Life Expectancy of Home Components (2007)' },
     repairOrReplace: {
       verdict: 'weigh', summary: 'Past half of its expected life (8.0 of about 13 years): replace rather than repair if the repair would cost $600 (half the price of a new unit) or more.',
