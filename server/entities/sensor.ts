@@ -25,8 +25,13 @@ export class Sensor {
   @Column({ name: 'interval_seconds', type: 'integer', default: 300 })
   intervalSeconds: number;
 
+  /** The newest reading's own time. */
   @Column({ name: 'last_seen_at', type: 'timestamptz', nullable: true })
   lastSeenAt: Date | null;
+
+  /** When the ingest last stored a reading of it (receipt, not reading time). */
+  @Column({ name: 'last_heard_at', type: 'timestamptz', nullable: true })
+  lastHeardAt: Date | null;
 
   @Column({ name: 'archived_at', type: 'timestamptz', nullable: true })
   archivedAt: Date | null;

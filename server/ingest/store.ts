@@ -39,9 +39,10 @@ function rollupUpsert(table: string, width: string): string {
 /**
  * One statement per batch: the readings (duplicates skipped by the (sensor_id, at) key),
  * the rollups of the rows actually inserted (so a redelivered message never counts twice),
- * and the sensors' last-seen time.
+ * and the sensors' last-seen time (newest reading). Live ingest also sets last-heard (this
+ * commit); readings attached from a logger file were not heard from the sensor.
  */
-const WRITE_BATCH = `
+const writeBatch = (heard: boolean) => `
   WITH ins AS (
     INSERT INTO reading (sensor_id, appliance_id, at, seq, fresh_food_c, freezer_c, fresh_food_flag, freezer_flag, battery_v, door_open)
     SELECT sensor_id, appliance_id, to_timestamp(at_ms / 1000), seq, fresh_food_c, freezer_c, fresh_food_flag, freezer_flag, battery_v, door_open
@@ -53,12 +54,12 @@ const WRITE_BATCH = `
   r5 AS (${rollupUpsert('reading_rollup_5m', '5 minutes')}),
   r1h AS (${rollupUpsert('reading_rollup_1h', '1 hour')}),
   seen AS (
-    UPDATE sensor s SET last_seen_at = GREATEST(s.last_seen_at, m.max_at)
+    UPDATE sensor s SET last_seen_at = GREATEST(s.last_seen_at, m.max_at)${heard ? ', last_heard_at = now()' : ''}
     FROM (SELECT sensor_id, max(at) AS max_at FROM ins GROUP BY 1) m WHERE s.id = m.sensor_id
   )`;
 
-const COUNT_INSERTED = `${WRITE_BATCH} SELECT count(*)::int AS inserted FROM ins`;
-const LIST_INSERTED = `${WRITE_BATCH} SELECT sensor_id::text AS sensor_id, (extract(epoch FROM at) * 1000)::float8 AS at_ms FROM ins`;
+const COUNT_INSERTED = `${writeBatch(false)} SELECT count(*)::int AS inserted FROM ins`;
+const LIST_INSERTED = `${writeBatch(true)} SELECT sensor_id::text AS sensor_id, (extract(epoch FROM at) * 1000)::float8 AS at_ms FROM ins`;
 
 type ArrayElement = string | number | boolean | null;
 
@@ -94,14 +95,14 @@ function columns(readings: StoredReading[]): string[] {
   ];
 }
 
-/** Writes one batch inside the caller's transaction; returns how many rows were new. */
+/** Writes one batch of readings not heard live (a logger file, a backfill) inside the caller's transaction; returns how many rows were new. */
 export async function insertReadings(client: PoolClient, readings: StoredReading[]): Promise<number> {
   if (!readings.length) return 0;
   const { rows } = await client.query<{ inserted: number }>(COUNT_INSERTED, columns(readings));
   return rows[0].inserted;
 }
 
-/** Like insertReadings, but names the rows that were new (for feeding detection). */
+/** The live ingest's write: like insertReadings, but the sensors count as heard now, and it names the rows that were new (for feeding detection). */
 export async function insertReadingsListingNew(client: PoolClient, readings: StoredReading[]): Promise<InsertedKey[]> {
   if (!readings.length) return [];
   const { rows } = await client.query<{ sensor_id: string; at_ms: number }>(LIST_INSERTED, columns(readings));

@@ -60,7 +60,7 @@ export function toApplianceView(row: ApplianceRow): ApplianceView {
 
 /** A sensor with the appliance it sits in. Every sensor the inventory pairs has one. */
 export const SENSOR_SELECT = `
-  SELECT s.id, s.device_id, s.appliance_id, s.interval_seconds, s.last_seen_at, s.archived_at, s.created_at,
+  SELECT s.id, s.device_id, s.appliance_id, s.interval_seconds, s.last_seen_at, s.last_heard_at, s.archived_at, s.created_at,
          a.style, u.label AS unit_label, p.name AS property_name
     FROM sensor s
     JOIN appliance a ON a.id = s.appliance_id
@@ -73,6 +73,7 @@ export interface SensorRow {
   appliance_id: string;
   interval_seconds: number;
   last_seen_at: Date | null;
+  last_heard_at: Date | null;
   archived_at: Date | null;
   created_at: Date;
   style: ApplianceStyle;
@@ -87,6 +88,7 @@ export function toSensorView(row: SensorRow): SensorView {
     applianceId: row.appliance_id,
     intervalSeconds: row.interval_seconds,
     lastSeenAt: isoOrNull(row.last_seen_at),
+    lastHeardAt: isoOrNull(row.last_heard_at),
     style: row.style,
     unitLabel: row.unit_label,
     propertyName: row.property_name,

@@ -255,6 +255,8 @@ export type SensorQuery = z.infer<typeof SensorQuery>;
 export type SensorQueryInput = z.input<typeof SensorQuery>;
 
 export interface SensorView extends SensorBrief {
+  /** When the ingest last stored a reading of it; `lastSeenAt` is that reading's own time. */
+  lastHeardAt: string | null;
   applianceId: string;
   style: ApplianceStyle;
   unitLabel: string;

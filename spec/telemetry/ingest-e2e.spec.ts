@@ -101,6 +101,12 @@ describe('ingest end to end: broker → ingest → PostgreSQL', () => {
       // Sorted by reading time, the sequence numbers come out in order: out-of-order arrival is undone.
       expect(rows.map((row) => Number(row.seq))).withContext(device.deviceId).toEqual(perDevice[i].map((sent) => sent.seq));
     }
+    // The sensor row: its newest reading's own time, and when the ingest last heard it (now, not a minute ago).
+    const [sensor] = await db.dataSource.query('SELECT last_seen_at, last_heard_at FROM sensor WHERE id = $1', [devices[0].sensorId]);
+    expect(new Date(sensor.last_seen_at).getTime()).toBe(Math.max(...perDevice[0].map((sent) => Date.parse(JSON.parse(sent.payload).at))));
+    expect(Date.now() - new Date(sensor.last_heard_at).getTime()).toBeLessThan(30_000);
+    expect(new Date(sensor.last_heard_at).getTime()).toBeGreaterThan(new Date(sensor.last_seen_at).getTime());
+
     // Rollups count each reading once, though some arrived twice.
     expect(await countRows(db.dataSource, 'SELECT sum(reading_count) AS n FROM reading_rollup_1h')).toBe(total);
     expect(await countRows(db.dataSource, 'SELECT sum(reading_count) AS n FROM reading_rollup_5m')).toBe(total);

@@ -69,6 +69,10 @@ describe('storage: monthly partitions, retention and liveness', () => {
     } finally {
       client.release();
     }
+    // Written outside the live ingest (a logger file, the seed): seen, but not heard from the sensor.
+    const [sensor] = await pool.query('SELECT last_seen_at, last_heard_at FROM sensor WHERE id = $1', [device.sensorId]).then((result) => result.rows);
+    expect(new Date(sensor.last_seen_at).getTime()).toBeGreaterThanOrEqual(lateMs);
+    expect(sensor.last_heard_at).toBeNull();
     expect(await partitionsOf('reading')).toContain('reading_y2024m07');
   });
 

@@ -20,12 +20,12 @@ describe('SensorDetail', () => {
   beforeEach(() => (backend = configureSpec()));
   afterEach(() => backend.verify());
 
-  async function render(rejects: SensorRejectsView, lastSeenAt: string | null) {
+  async function render(rejects: SensorRejectsView, lastSeenAt: string | null, lastHeardAt: string | null = null) {
     const fixture = TestBed.createComponent(SensorDetail);
     fixture.componentRef.setInput('sensorId', 's1');
     fixture.detectChanges();
     await settle(fixture);
-    backend.expectOne('/api/inventory/sensors/s1').flush(sensor(1, { lastSeenAt }));
+    backend.expectOne('/api/inventory/sensors/s1').flush(sensor(1, { lastSeenAt, lastHeardAt }));
     backend.expectOne('/api/sensors/s1/rejects').flush(rejects);
     await settle(fixture);
     return { fixture, element: fixture.nativeElement as HTMLElement };
@@ -35,7 +35,8 @@ describe('SensorDetail', () => {
     const { element } = await render(REFUSED, new Date().toISOString());
     expect(element.querySelector('h2')?.textContent).toContain('cw-000000000001');
     expect(element.querySelector('.place a')?.getAttribute('href')).toBe('/appliances/a1');
-    expect(element.querySelector('[data-testid="liveness"]')?.textContent).toContain('Last report');
+    expect(element.querySelector('[data-testid="liveness"]')?.textContent).toContain('Last heard');
+    expect(element.querySelector('[data-testid="reading-time"]')).toBeNull();
     const counts = Array.from(element.querySelectorAll('.counts li')).map((item) => `${item.querySelector('.count')?.textContent} ${item.querySelector('.count + span')?.textContent?.trim()}`);
     expect(counts).toEqual([
       '5 schema — payload does not match the reading schema',
@@ -55,8 +56,17 @@ describe('SensorDetail', () => {
     expect(element.textContent).toContain('Nothing refused or flagged from this sensor');
     expect(element.querySelector('.latest')).toBeNull();
     const liveness = element.querySelector('[data-testid="liveness"]');
-    expect(liveness?.textContent).toContain('Silent: last report');
+    expect(liveness?.textContent).toContain('Silent: last heard');
     expect(liveness?.classList).toContain('is-silent');
+  });
+
+  it('judges liveness by arrival: a sensor sending hours-old readings now is heard, and says how old its newest reading is', async () => {
+    const hoursAgo = new Date(Date.now() - 5 * 3_600_000).toISOString();
+    const { element } = await render({ sensorId: 's1', deviceId: 'cw-000000000001', countsByReason: {}, latest: [] }, hoursAgo, new Date().toISOString());
+    const liveness = element.querySelector('[data-testid="liveness"]');
+    expect(liveness?.textContent).toContain('Last heard');
+    expect(liveness?.classList).not.toContain('is-silent');
+    expect(element.querySelector('[data-testid="reading-time"]')?.textContent).toContain('Newest reading taken');
   });
 
   it('says why the page could not load', async () => {

@@ -57,9 +57,21 @@ export class SensorDetail {
   protected readonly rejects = computed(() => this.loaded().rejects);
   protected readonly error = computed(() => this.loaded().error);
   protected readonly loading = computed(() => this.loaded().loading);
+  /** When a reading last arrived: receipt time, or the reading's own time where no receipt is recorded. */
+  protected readonly heardAt = computed(() => {
+    const sensor = this.sensor();
+    const times = [sensor?.lastHeardAt, sensor?.lastSeenAt].filter((time): time is string => !!time).map(Date.parse);
+    return times.length ? Math.max(...times) : null;
+  });
   protected readonly silent = computed(() => {
     const sensor = this.sensor();
-    return sensor ? isSilent(sensor.lastSeenAt ? Date.parse(sensor.lastSeenAt) : null, sensor.intervalSeconds, Date.now()) : false;
+    return sensor ? isSilent(this.heardAt(), sensor.intervalSeconds, Date.now()) : false;
+  });
+  /** The newest reading is older than its arrival by more than an interval: a buffer upload, or the demo's replay. */
+  protected readonly readingLags = computed(() => {
+    const sensor = this.sensor();
+    const heardAt = this.heardAt();
+    return !!sensor?.lastSeenAt && heardAt !== null && heardAt - Date.parse(sensor.lastSeenAt) > sensor.intervalSeconds * 1000;
   });
   /** Reasons, most frequent first. */
   protected readonly counts = computed(() =>

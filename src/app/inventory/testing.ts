@@ -84,6 +84,7 @@ export function sensor(n: number, extra: Partial<SensorView> = {}): SensorView {
     applianceId: `a${n}`,
     intervalSeconds: 300,
     lastSeenAt: null,
+    lastHeardAt: null,
     style: 'top-freezer',
     unitLabel: `${n}A`,
     propertyName: 'Linden Court 1',
