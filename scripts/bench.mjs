@@ -6,6 +6,7 @@ import path from 'node:path';
 import { spawnSync } from 'node:child_process';
 import { ensureNodeModules } from './lib/deps.mjs';
 import { ROOT, PG_PORT } from './lib/paths.mjs';
+import { THROUGHPUT_FLAGS } from './lib/services.mjs';
 import { log } from './lib/shell.mjs';
 
 async function main() {
@@ -25,7 +26,7 @@ async function main() {
     for (const name of benches) {
       log(`── ${name}`);
       // The same V8 flag the broker and server run with (the ingest benchmark's worker runs in-process).
-      const result = spawnSync(process.execPath, ['--max-semi-space-size=64', '--import', 'tsx', path.join('spec', 'bench', name)], {
+      const result = spawnSync(process.execPath, [...THROUGHPUT_FLAGS, '--import', 'tsx', path.join('spec', 'bench', name)], {
         cwd: ROOT,
         stdio: 'inherit',
         env: { ...process.env, TSX_TSCONFIG_PATH: 'server/tsconfig.json', NODE_ENV: 'test', LOG_LEVEL: 'silent', TEST_PG_ADMIN_URL: `postgres://postgres@127.0.0.1:${PG_PORT}/postgres` },

@@ -7,6 +7,7 @@ import path from 'node:path';
 import { spawnSync } from 'node:child_process';
 import { ensureNodeModules } from './lib/deps.mjs';
 import { ROOT } from './lib/paths.mjs';
+import { QUIET_SDK_ENV } from './lib/env.mjs';
 import { aptInstall, log } from './lib/shell.mjs';
 
 const CHROMIUM = '/usr/bin/chromium';
@@ -70,7 +71,7 @@ async function main() {
   const { buildClient, buildServer } = await import('./lib/build.mjs');
   const { runE2e } = await import('./lib/e2e.mjs');
   const postgres = ensurePostgres();
-  const tsxEnv = { TSX_TSCONFIG_PATH: 'server/tsconfig.json', NODE_ENV: 'test', AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: 'true', TEST_PG_ADMIN_URL: `postgres://postgres@127.0.0.1:${process.env.PGPORT_CHILLWARDEN ?? 55432}/postgres` };
+  const tsxEnv = { ...QUIET_SDK_ENV, TSX_TSCONFIG_PATH: 'server/tsconfig.json', NODE_ENV: 'test', TEST_PG_ADMIN_URL: `postgres://postgres@127.0.0.1:${process.env.PGPORT_CHILLWARDEN ?? 55432}/postgres` };
   try {
     check('type-check: client', bin('tsc'), ['-p', 'tsconfig.app.json', '--noEmit']);
     check('type-check: client specs', bin('tsc'), ['-p', 'tsconfig.spec.json', '--noEmit']);

@@ -8,9 +8,10 @@ const node = process.execPath;
 /**
  * The broker and the server (which runs the ingest) allocate a little per message; a larger
  * young generation makes V8 collect less often. Worth about 7 % in `npm run bench`'s ingest
- * figure on this machine (same flag in broker/cluster/processes.ts).
+ * figure on this machine (same flag in broker/cluster/processes.ts, which TypeScript builds
+ * and these scripts cannot import; scripts/bench.mjs takes it from here).
  */
-const THROUGHPUT_FLAGS = ['--max-semi-space-size=64'];
+export const THROUGHPUT_FLAGS = ['--max-semi-space-size=64'];
 const dist = (file) => path.join(ROOT, 'dist', 'server', file);
 
 /** The seeded history ends this long before the seed ran (seeds/scenario/storyline.ts STORYLINE_REPLAY_HOURS). */
