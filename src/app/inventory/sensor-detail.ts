@@ -20,6 +20,8 @@ interface Loaded {
   loading: boolean;
 }
 
+const LOADING: Loaded = { sensor: null, rejects: null, error: null, loading: true };
+
 const SOURCE_LABELS = { broker: 'Broker', ingest: 'Ingest' } as const;
 
 /**
@@ -46,11 +48,11 @@ export class SensorDetail {
         forkJoin({ sensor: this.api.get(id), rejects: this.api.rejects(id) }).pipe(
           map(({ sensor, rejects }): Loaded => ({ sensor, rejects, error: null, loading: false })),
           catchError((error: unknown) => of<Loaded>({ sensor: null, rejects: null, error: errorMessage(error), loading: false })),
-          startWith<Loaded>({ sensor: null, rejects: null, error: null, loading: true }),
+          startWith(LOADING),
         ),
       ),
     ),
-    { initialValue: { sensor: null, rejects: null, error: null, loading: true } as Loaded },
+    { initialValue: LOADING },
   );
 
   protected readonly sensor = computed(() => this.loaded().sensor);
